@@ -1,0 +1,199 @@
+/* curve: the dose-response curve as a table and a terminal plot, optionally with a program's
+ * muscles marked on it. */
+#include <getopt.h>
+#include <langinfo.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include <cjson/cJSON.h>
+
+#include "../core/audit.h"
+#include "../io/program_io.h"
+#include "../io/table.h"
+#include "../plot/textplot.h"
+#include "cmd.h"
+
+extern const struct sd_cmd cmd_curve;
+
+static int unicode_ok(void)
+{
+	const char *cs = nl_langinfo(CODESET);
+	return cs && !strcmp(cs, "UTF-8");
+}
+
+static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, struct sd_err *e)
+{
+	static const char *const heads[] = { "sets", "gain%", "ci_low", "ci_high", "pi_low",
+					     "pi_high", "+1set%", "<zone" };
+	const struct sd_profile *p = &ctx->profile;
+	struct sd_table *t = tbl_new(8, heads);
+	double plateau = curve_plateau(p, cov, 1.0);
+	cJSON *arr = NULL;
+
+	if (!t)
+		return sd_fail(e, "out of memory");
+	if (ctx->opt.format == SD_FMT_JSON && !(arr = cJSON_CreateArray())) {
+		tbl_free(t);
+		return sd_fail(e, "out of memory");
+	}
+	int n = (int)((p->dose_max - p->dose_min) / step + 1e-9);
+	for (int i = 0; i <= n; i++) {
+		double x = p->dose_min + i * step;
+		struct sd_point pt;
+		struct sd_marginal mg;
+		curve_eval(p, cov, x, ctx->opt.level, &pt);
+		curve_marginal(p, cov, x, ctx->opt.level, &mg);
+		if (arr) {
+			cJSON *o = cJSON_CreateObject();
+			cJSON_AddNumberToObject(o, "sets", x);
+			cJSON_AddNumberToObject(o, "lnrr", pt.y);
+			cJSON_AddNumberToObject(o, "gain_pct", curve_pct(pt.y));
+			cJSON_AddNumberToObject(o, "ci_low", curve_pct(pt.ci_lo));
+			cJSON_AddNumberToObject(o, "ci_high", curve_pct(pt.ci_hi));
+			cJSON_AddNumberToObject(o, "pi_low", curve_pct(pt.pi_lo));
+			cJSON_AddNumberToObject(o, "pi_high", curve_pct(pt.pi_hi));
+			cJSON_AddNumberToObject(o, "marginal_pct", mg.pct);
+			cJSON_AddStringToObject(o, "zone", zone_name(curve_zone(p, plateau, x)));
+			cJSON_AddItemToArray(arr, o);
+			continue;
+		}
+		tbl_row(t);
+		tbl_set(t, 0, "%g", x);
+		tbl_set(t, 1, "%.1f", curve_pct(pt.y));
+		tbl_set(t, 2, "%.1f", curve_pct(pt.ci_lo));
+		tbl_set(t, 3, "%.1f", curve_pct(pt.ci_hi));
+		tbl_set(t, 4, "%.1f", curve_pct(pt.pi_lo));
+		tbl_set(t, 5, "%.1f", curve_pct(pt.pi_hi));
+		tbl_set(t, 6, "%.2f", mg.pct);
+		tbl_set(t, 7, "%s", zone_name(curve_zone(p, plateau, x)));
+	}
+	if (arr) {
+		cJSON *root = cJSON_CreateObject();
+		cJSON_AddStringToObject(root, "profile", p->name);
+		cJSON_AddStringToObject(root, "status", cov->trained >= 0.5 ? "trained" : "untrained");
+		cJSON_AddNumberToObject(root, "weeks", cov->weeks);
+		cJSON_AddNumberToObject(root, "level", ctx->opt.level);
+		cJSON_AddNumberToObject(root, "plateau", plateau);
+		cJSON_AddItemToObject(root, "points", arr);
+		char *s = cJSON_Print(root);
+		if (s)
+			fprintf(ctx->out, "%s\n", s);
+		free(s);
+		cJSON_Delete(root);
+	} else {
+		if (ctx->opt.format == SD_FMT_TABLE)
+			fprintf(ctx->out, "%s; %s, %g-week block; %.0f%% intervals; plateau at %g weekly "
+				"fractional sets\n\n", p->name, cov->trained >= 0.5 ? "trained" : "untrained",
+				cov->weeks, ctx->opt.level * 100, plateau);
+		tbl_print(t, ctx->out, ctx->opt.format == SD_FMT_CSV);
+	}
+	tbl_free(t);
+	return 0;
+}
+
+static int print_plot(struct sd_ctx *ctx, const struct sd_covars *cov, const char *program,
+		      struct sd_err *e)
+{
+	struct sd_tplot *tp = tplot_new(61, 17);
+	struct sd_program prog;
+	int rc = 0, unicode = unicode_ok();
+
+	if (!tp)
+		return sd_fail(e, "out of memory");
+	tplot_curve(tp, &ctx->profile, cov, ctx->opt.level, ctx->profile.dose_max);
+	if (program) {
+		struct sd_audit au;
+		struct sd_audit_opts o = { ctx->opt.level, ctx->opt.max_rir, SD_SESSION_CAP };
+		if (program_load(program, &ctx->lib, &prog, e)) {
+			tplot_free(tp);
+			return -1;
+		}
+		rc = audit_run(&prog, &ctx->lib, &ctx->profile, cov, &o, &au, e);
+		if (!rc) {
+			char letter = 'a';
+			fprintf(ctx->out, "\nmarks (%s):", prog.name);
+			for (int m = 0; m < SD_NMUSCLES; m++) {
+				if (au.row[m].dose.fractional <= 0)
+					continue;
+				double x = au.row[m].dose.fractional;
+				tplot_mark(tp, x > tp->x1 ? tp->x1 : x, curve_pct(au.row[m].pt.y), letter);
+				fprintf(ctx->out, " %c=%s %.1f", letter, muscle_name(m), x);
+				letter = letter == 'z' ? 'A' : (char)(letter + 1);
+			}
+			fputc('\n', ctx->out);
+			audit_free(&au);
+		}
+		prog_free(&prog);
+	}
+	if (!rc) {
+		fputc('\n', ctx->out);
+		tplot_print(ctx->out, tp, unicode);
+		fprintf(ctx->out, "%s mean   %s %.0f%% confidence band   %s %.0f%% prediction band\n",
+			unicode ? "\u2588" : "#", unicode ? "\u2592" : ":", ctx->opt.level * 100,
+			unicode ? "\u2591" : ".", ctx->opt.level * 100);
+	}
+	tplot_free(tp);
+	return rc;
+}
+
+static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	static const struct option longopts[] = {
+		{ "program", required_argument, NULL, 'p' },
+		{ "step", required_argument, NULL, 's' },
+		{ "no-plot", no_argument, NULL, 'n' },
+		{ NULL, 0, NULL, 0 },
+	};
+	const char *program = NULL;
+	double step = 1;
+	int c, plot = 1;
+	char *end;
+	struct sd_covars cov;
+
+	optind = 0;
+	while ((c = getopt_long(argc, argv, "+", longopts, NULL)) != -1) {
+		switch (c) {
+		case 'p':
+			program = optarg;
+			break;
+		case 's':
+			step = strtod(optarg, &end);
+			if (end == optarg || *end || !(step >= 0.1 && step <= 10))
+				return sd_usage(e, "--step wants a number from 0.1 to 10, not '%s'", optarg);
+			break;
+		case 'n':
+			plot = 0;
+			break;
+		default:
+			return sd_usage(e, "usage: setdose %s", cmd_curve.usage);
+		}
+	}
+	if (optind < argc)
+		return sd_usage(e, "curve takes no arguments besides options, got '%s'", argv[optind]);
+	cov = cmd_covars(ctx, 0);
+	if (program) {
+		/* The program's own block length applies when --weeks is not given. */
+		struct sd_program prog;
+		if (program_load(program, &ctx->lib, &prog, e))
+			return -1;
+		cov = cmd_covars(ctx, prog.weeks);
+		prog_free(&prog);
+	}
+	if (print_table(ctx, step, &cov, e))
+		return -1;
+	if (plot && ctx->opt.format == SD_FMT_TABLE && print_plot(ctx, &cov, program, e))
+		return -1;
+	cmd_print_caution(ctx);
+	return 0;
+}
+
+const struct sd_cmd cmd_curve = {
+	.name = "curve",
+	.summary = "the dose-response curve with confidence and prediction bands",
+	.usage = "curve [--program FILE] [--step SETS] [--no-plot]\n"
+		 "  --program FILE  mark the program's muscles on the plot\n"
+		 "  --step SETS     table step in weekly fractional sets (default 1)\n"
+		 "  --no-plot       the table only",
+	.flags = CMD_PROFILE | CMD_LIBRARY,
+	.exec = exec_curve,
+};

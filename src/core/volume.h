@@ -1,0 +1,35 @@
+/* Weekly fractional sets: a direct set counts w_direct (1.0) for each prime mover, an
+ * indirect set w_indirect (0.5) for each synergist. Only hard sets count: a set with a
+ * stated RIR above max_rir is listed as not counted. */
+#ifndef SD_VOLUME_H
+#define SD_VOLUME_H
+
+#include "library.h"
+#include "program.h"
+
+struct sd_mdose {
+	double direct;      /* hard sets with this muscle as prime mover */
+	double indirect;    /* hard sets with this muscle as synergist */
+	double fractional;  /* w_direct * direct + w_indirect * indirect */
+	double max_session; /* largest fractional count in one day */
+	int sessions;       /* days with a positive fractional count */
+	double easy;        /* sets not counted (RIR above the limit) that would have hit it */
+};
+
+struct sd_volume {
+	struct sd_mdose m[SD_NMUSCLES];
+	int ndays;
+	double *day;        /* ndays x SD_NMUSCLES fractional sets per day; owned */
+	int hard_sets;      /* hard sets in the week (whole sets, not fractional) */
+	int easy_sets;      /* sets above the RIR limit */
+	int unknown_rir;    /* sets with no RIR stated (counted as hard) */
+};
+
+/* Counts a program. Fails only on allocation failure. */
+int vol_count(const struct sd_program *p, const struct sd_library *lib, double w_direct,
+	      double w_indirect, int max_rir, struct sd_volume *v, struct sd_err *e);
+/* Fractional sets of muscle m on day d. */
+double vol_day(const struct sd_volume *v, int d, int m);
+void vol_free(struct sd_volume *v);
+
+#endif

@@ -1,0 +1,44 @@
+/* Prints audits: a per-program report (table), or rows of a summary table shared by
+ * `audit --summary` and `audit --all`, or JSON objects (cJSON stays inside io/). */
+#ifndef SD_AUDIT_OUT_H
+#define SD_AUDIT_OUT_H
+
+#include <stdio.h>
+
+#include "../core/audit.h"
+#include "../core/profile.h"
+#include "table.h"
+
+struct sd_audit_info {
+	const char *label;          /* file name or stored template name */
+	const struct sd_program *prog;
+	const struct sd_profile *prof;
+	const struct sd_audit *audit;
+	const char *athlete;        /* or NULL */
+};
+
+/* The full report of one audit as aligned text. */
+void aout_report(FILE *f, const struct sd_audit_info *in, int color);
+/* One CSV block of one audit: a row per muscle, with the program label as first column. */
+struct sd_table *aout_muscle_table(int with_label);
+int aout_muscle_rows(struct sd_table *t, const struct sd_audit_info *in, int with_label);
+/* Summary lines, streamed (10,000 programs must not be held in memory): one line per
+ * program (and athlete) and muscle. Widths are fixed up front by the caller. */
+struct sd_sumout {
+	FILE *f;
+	int csv;
+	int with_athlete;
+	int wa, wp;                 /* athlete and program column widths (table only) */
+};
+void aout_sum_head(const struct sd_sumout *o);
+void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in);
+
+/* JSON, streamed: begin prints '{"audits": [', item one audit object, end the caution and the
+ * closing brackets. */
+void aout_json_begin(FILE *f);
+int aout_json_item(FILE *f, const struct sd_audit_info *in, int first);
+void aout_json_end(FILE *f);
+
+extern const char aout_caution[];
+
+#endif

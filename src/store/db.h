@@ -1,0 +1,143 @@
+/* The store: athletes, program templates, training blocks and strength tests in SQLite.
+ * This module is the only code that touches SQLite; sqlite3 types never leave it.
+ *
+ * Contract: every function returns 0 (or a count, where it says) on success and -1 with e
+ * filled on failure. Writes are made inside db_begin .. db_commit so one command's writes land
+ * together or not at all; db_close rolls back a transaction left open. Dates are ISO
+ * YYYY-MM-DD strings, loads are kilograms. Records own nothing unless a field says so. */
+#ifndef SD_DB_H
+#define SD_DB_H
+
+#include <stddef.h>
+
+#include "../core/err.h"
+
+#define DB_NAME_MAX 64
+#define DB_PROGNAME_MAX 128
+#define DB_NOTES_MAX 1024
+#define DB_DATE_LEN 11          /* "YYYY-MM-DD" and its NUL */
+#define DB_STAMP_LEN 20         /* "YYYY-MM-DD HH:MM:SS" and its NUL */
+#define DB_FORMULA_MAX 16
+
+struct sd_db;
+
+struct db_athlete {
+	long long id;
+	char name[DB_NAME_MAX];
+	int trained;                /* 1 trained, 0 untrained */
+	int units_lb;               /* 1: loads shown and entered in lb */
+	char notes[DB_NOTES_MAX];
+	char created[DB_STAMP_LEN]; /* UTC */
+};
+
+struct db_program {
+	long long id;
+	char name[DB_PROGNAME_MAX];
+	int is_csv;                 /* the source is CSV, not INI */
+	char *source;               /* the template text verbatim, NUL-terminated; owned */
+	size_t len;                 /* bytes in source (it may hold no NUL of its own) */
+	char created[DB_STAMP_LEN];
+};
+
+struct db_block {
+	long long id;
+	long long athlete_id, program_id;
+	char athlete[DB_NAME_MAX];
+	char program[DB_PROGNAME_MAX];
+	char start[DB_DATE_LEN];
+	char end[DB_DATE_LEN];      /* "" while the block is open */
+	int weeks;                  /* planned length */
+	int trained;                /* the athlete's current status: 1 trained */
+};
+
+struct db_test {
+	long long id, athlete_id;
+	char lift[DB_NAME_MAX];     /* the library's canonical exercise name */
+	char date[DB_DATE_LEN];
+	double load_kg;
+	int reps;
+	double e1rm_kg;
+	char formula[DB_FORMULA_MAX];
+};
+
+/* Called once per record by the *_each functions; a non-zero return stops the walk and is
+ * returned (a callback that fails fills its own error). */
+typedef int (*db_block_fn)(const struct db_block *b, void *arg);
+
+/* Opens (creating the folder and the file on first use) and migrates the database at path,
+ * with foreign keys on, WAL journal and a busy timeout. ":memory:" works for tests. */
+int db_open(const char *path, struct sd_db **out, struct sd_err *e);
+/* Closes; rolls back an unfinished transaction. NULL is a no-op. */
+void db_close(struct sd_db *db);
+/* The default database path: $XDG_DATA_HOME/setdose/setdose.db, else
+ * $HOME/.local/share/setdose/setdose.db; returns buf, or NULL when neither variable is set. */
+const char *db_default_path(char *buf, size_t n);
+/* The path db was opened with. */
+const char *db_path(const struct sd_db *db);
+/* Schema version of the open database, and the newest this binary knows. */
+int db_schema_version(struct sd_db *db);
+int db_schema_latest(void);
+
+/* One write transaction (taken at once, waiting out other writers up to the busy timeout). */
+int db_begin(struct sd_db *db, struct sd_err *e);
+int db_commit(struct sd_db *db, struct sd_err *e);
+/* Rolls back the open transaction, if any. */
+void db_rollback(struct sd_db *db);
+
+/* PRAGMA integrity_check and foreign_key_check: 0 when both pass; otherwise -1 with the
+ * first problems in e. *problems (may be NULL) gets how many rows they reported. */
+int db_check(struct sd_db *db, int *problems, struct sd_err *e);
+/* Copies the open database to a new file with the online backup API. Refuses an existing
+ * file unless overwrite. */
+int db_backup(struct sd_db *db, const char *dest, int overwrite, struct sd_err *e);
+
+/* Athletes. Names are unique, compared case-insensitively (ASCII). */
+int db_athlete_add(struct sd_db *db, const struct db_athlete *a, long long *id, struct sd_err *e);
+/* Finds by name; fails with "unknown athlete 'NAME'" when absent. */
+int db_athlete_get(struct sd_db *db, const char *name, struct db_athlete *out, struct sd_err *e);
+/* Rewrites name, status, units and notes of the athlete with a->id. */
+int db_athlete_update(struct sd_db *db, const struct db_athlete *a, struct sd_err *e);
+/* All athletes by name; *out is malloc'd (free it), *n set. */
+int db_athlete_list(struct sd_db *db, struct db_athlete **out, int *n, struct sd_err *e);
+/* Blocks and tests that reference the athlete. */
+int db_athlete_refs(struct sd_db *db, long long id, int *nblocks, int *ntests, struct sd_err *e);
+/* Removes the athlete; with cascade also its blocks and tests, else refuses while they exist. */
+int db_athlete_rm(struct sd_db *db, long long id, int cascade, struct sd_err *e);
+
+/* Program templates. Names are unique, compared case-insensitively (ASCII). */
+int db_program_add(struct sd_db *db, const char *name, const char *src, size_t len, int is_csv,
+		   long long *id, struct sd_err *e);
+/* Finds by name, loading the source; free with db_program_free. */
+int db_program_get(struct sd_db *db, const char *name, struct db_program *out, struct sd_err *e);
+int db_program_get_id(struct sd_db *db, long long id, struct db_program *out, struct sd_err *e);
+/* All templates by name, without their source (source NULL, len set); free with
+ * db_program_list_free. */
+int db_program_list(struct sd_db *db, struct db_program **out, int *n, struct sd_err *e);
+/* Blocks that use the template. */
+int db_program_refs(struct sd_db *db, long long id, int *nblocks, struct sd_err *e);
+/* Removes a template; refuses while blocks use it. */
+int db_program_rm(struct sd_db *db, long long id, struct sd_err *e);
+void db_program_free(struct db_program *p);
+void db_program_list_free(struct db_program *p, int n);
+
+/* Training blocks. */
+int db_block_add(struct sd_db *db, long long athlete_id, long long program_id, const char *start,
+		 int weeks, long long *id, struct sd_err *e);
+/* Fails with "unknown block ID" when absent. */
+int db_block_get(struct sd_db *db, long long id, struct db_block *out, struct sd_err *e);
+/* Sets the end date of an open block. */
+int db_block_end(struct sd_db *db, long long id, const char *end, struct sd_err *e);
+/* Blocks of one athlete (athlete_id > 0) or all, by start date then id; *out malloc'd. */
+int db_block_list(struct sd_db *db, long long athlete_id, struct db_block **out, int *n,
+		  struct sd_err *e);
+/* Walks the open blocks (no end date) ordered by athlete name, start, id, without loading them
+ * all at once. Returns 0, -1 on a store error, or the callback's non-zero value. */
+int db_block_each_open(struct sd_db *db, db_block_fn fn, void *arg, struct sd_err *e);
+
+/* Strength tests. */
+int db_test_add(struct sd_db *db, const struct db_test *t, long long *id, struct sd_err *e);
+/* Tests of one athlete, optionally of one lift (NULL: all), by lift, date, id; *out malloc'd. */
+int db_test_list(struct sd_db *db, long long athlete_id, const char *lift, struct db_test **out,
+		 int *n, struct sd_err *e);
+
+#endif

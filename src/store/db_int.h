@@ -1,0 +1,27 @@
+/* Inside the store only: the connection struct and helpers shared by its files. */
+#ifndef SD_DB_INT_H
+#define SD_DB_INT_H
+
+#include <sqlite3.h>
+
+#include "db.h"
+
+struct sd_db {
+	sqlite3 *h;
+	char path[4096];
+};
+
+/* Prepares sql (a constant; values are always bound, never pasted in). */
+int dbi_prepare(struct sd_db *db, const char *sql, sqlite3_stmt **st, struct sd_err *e);
+/* Fills e with "cannot WHAT: <sqlite message>" and returns -1. */
+int dbi_fail(struct sd_db *db, struct sd_err *e, const char *what);
+/* Copies a text column into buf ("" for NULL), truncating to n - 1 bytes. */
+void dbi_text(sqlite3_stmt *st, int col, char *buf, size_t n);
+/* Steps a statement that returns no rows (INSERT/UPDATE/DELETE); 0 on SQLITE_DONE. */
+int dbi_exec_step(struct sd_db *db, sqlite3_stmt *st, const char *what, struct sd_err *e);
+/* Runs a one-row, one-integer query with one optional bound id (id < 0: none). */
+int dbi_count(struct sd_db *db, const char *sql, long long id, long long *out, struct sd_err *e);
+/* Applies the embedded migrations (migrate.c). */
+int dbi_migrate(struct sd_db *db, struct sd_err *e);
+
+#endif
