@@ -145,7 +145,7 @@ static void test_errors(void **state)
 	expect_error("[program]\ncolour = red\n[a]\nbench press = 3\n", "unknown key 'colour'");
 	expect_error("[a]\nbench press = 3\n[A]\nback squat = 3\n", "day 'A' appears twice");
 	expect_error("[a\nbench press = 3\n", "line 1: bad section header");
-	expect_error("[a]\nbench press 3\n", "line 2: expected 'exercise = sets'");
+	expect_error("[a]\nbench press 3\n", "line 2: expected 'name = value'");
 }
 
 /* The same exercise on two different days is fine; the same day twice is not. */

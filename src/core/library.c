@@ -25,21 +25,20 @@ static void free_aliases(struct sd_exercise *x)
 	x->naliases = 0;
 }
 
-static int slot_of(const struct sd_library *lib, const char *name)
+static int slot_of(const struct sd_library *lib, const char *key)
 {
-	char a[SD_NAME_MAX], b[SD_NAME_MAX];
-	lib_norm(name, a, sizeof a);
-	for (int i = 0; i < lib->n; i++) {
-		lib_norm(lib->ex[i].name, b, sizeof b);
-		if (!strcmp(a, b))
+	for (int i = 0; i < lib->n; i++)
+		if (!strcmp(key, lib->ex[i].key))
 			return i;
-	}
 	return -1;
 }
 
 int lib_put(struct sd_library *lib, struct sd_exercise *x, struct sd_err *e)
 {
-	int i = slot_of(lib, x->name);
+	int i;
+
+	lib_norm(x->name, x->key, sizeof x->key);
+	i = slot_of(lib, x->key);
 
 	free(lib->keys);   /* any change invalidates the index */
 	lib->keys = NULL;
@@ -81,7 +80,7 @@ int lib_index(struct sd_library *lib, struct sd_err *e)
 	if (!lib->keys)
 		return sd_fail(e, "out of memory");
 	for (int i = 0; i < lib->n; i++) {
-		lib_norm(lib->ex[i].name, lib->keys[k].key, SD_NAME_MAX);
+		memcpy(lib->keys[k].key, lib->ex[i].key, SD_NAME_MAX);
 		lib->keys[k++].ex = i;
 		for (int j = 0; j < lib->ex[i].naliases; j++) {
 			lib_norm(lib->ex[i].aliases[j], lib->keys[k].key, SD_NAME_MAX);
@@ -90,6 +89,13 @@ int lib_index(struct sd_library *lib, struct sd_err *e)
 	}
 	qsort(lib->keys, (size_t)k, sizeof *lib->keys, keycmp);
 	lib->nkeys = k;
+	/* Two exercises answering to one name would make lookups arbitrary. */
+	for (int i = 1; i < k; i++)
+		if (!strcmp(lib->keys[i].key, lib->keys[i - 1].key) &&
+		    lib->keys[i].ex != lib->keys[i - 1].ex)
+			return sd_fail(e, "exercise library: '%s' and '%s' share the name or alias '%s'",
+				       lib->ex[lib->keys[i - 1].ex].name, lib->ex[lib->keys[i].ex].name,
+				       lib->keys[i].key);
 	return 0;
 }
 

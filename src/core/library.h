@@ -12,6 +12,7 @@
 
 struct sd_exercise {
 	char name[SD_NAME_MAX];
+	char key[SD_NAME_MAX];   /* normalised name, set by lib_put */
 	char **aliases;          /* naliases strings */
 	int naliases;
 	sd_mset direct, indirect;

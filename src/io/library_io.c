@@ -1,132 +1,154 @@
 #include "library_io.h"
 
 #include <errno.h>
-#include <stdarg.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <strings.h>
 #include <unistd.h>
 
-#include <iniparser/iniparser.h>
+#include "ini.h"
 
-static char ini_error[256];
+struct lib_state {
+	const char *path;
+	struct sd_library *lib;
+	struct sd_exercise x;      /* the section being read */
+	int open, line, have_direct;
+};
 
-static int ini_errback(const char *fmt, ...)
+static void drop(struct sd_exercise *x)
 {
-	va_list ap;
-	if (ini_error[0])
-		return 0;
-	va_start(ap, fmt);
-	vsnprintf(ini_error, sizeof ini_error, fmt, ap);
-	va_end(ap);
-	return 0;
+	for (int i = 0; i < x->naliases; i++)
+		free(x->aliases[i]);
+	free(x->aliases);
+	memset(x, 0, sizeof *x);
 }
 
-static int parse_muscles(const char *list, sd_mset *out, const char *path, const char *sec,
-			 const char *key, struct sd_err *e)
-{
-	char buf[512];
-	*out = 0;
-	snprintf(buf, sizeof buf, "%s", list);
-	for (char *tok = strtok(buf, ","); tok; tok = strtok(NULL, ",")) {
-		while (*tok == ' ')
-			tok++;
-		char *end = tok + strlen(tok);
-		while (end > tok && end[-1] == ' ')
-			*--end = '\0';
-		if (!*tok)
-			continue;
-		int m = muscle_find(tok);
-		if (m < 0)
-			return sd_fail(e, "exercise library '%s' [%s]: unknown muscle '%s' in %s "
-				       "(see 'setdose exercises --muscles')", path, sec, tok, key);
-		*out |= (sd_mset)1 << m;
-	}
-	return 0;
-}
-
-static int parse_aliases(const char *list, struct sd_exercise *x, struct sd_err *e)
+/* Calls fn on each comma-separated, trimmed, non-empty item of list. */
+static int each_item(const char *list, int (*fn)(const char *, void *, struct sd_err *),
+		     void *arg, struct sd_err *e)
 {
 	char buf[1024];
 	snprintf(buf, sizeof buf, "%s", list);
 	for (char *tok = strtok(buf, ","); tok; tok = strtok(NULL, ",")) {
-		while (*tok == ' ')
+		while (*tok == ' ' || *tok == '\t')
 			tok++;
 		char *end = tok + strlen(tok);
-		while (end > tok && end[-1] == ' ')
+		while (end > tok && (end[-1] == ' ' || end[-1] == '\t'))
 			*--end = '\0';
-		if (!*tok)
-			continue;
-		char **na = realloc(x->aliases, (size_t)(x->naliases + 1) * sizeof *na);
-		if (!na)
-			return sd_fail(e, "out of memory");
-		x->aliases = na;
-		if (!(x->aliases[x->naliases] = strdup(tok)))
-			return sd_fail(e, "out of memory");
-		x->naliases++;
+		if (*tok && fn(tok, arg, e))
+			return -1;
 	}
 	return 0;
 }
 
-static int load_section(dictionary *d, const char *path, const char *sec,
-			struct sd_library *lib, struct sd_err *e)
-{
-	struct sd_exercise x;
-	char key[SD_NAME_MAX + 16];
-	const char *v;
+struct mus_arg {
+	const struct lib_state *st;
+	const char *key;
+	sd_mset *set;
+};
 
-	memset(&x, 0, sizeof x);
-	if (strlen(sec) >= SD_NAME_MAX)
-		return sd_fail(e, "exercise library '%s': name too long '%s'", path, sec);
-	snprintf(x.name, sizeof x.name, "%s", sec);
-	snprintf(key, sizeof key, "%s:kind", sec);
-	snprintf(x.kind, sizeof x.kind, "%s", iniparser_getstring(d, key, "other"));
-	snprintf(key, sizeof key, "%s:direct", sec);
-	v = iniparser_getstring(d, key, NULL);
-	if (!v)
-		return sd_fail(e, "exercise library '%s' [%s]: missing 'direct'", path, sec);
-	if (parse_muscles(v, &x.direct, path, sec, "direct", e))
-		return -1;
-	if (!x.direct)
-		return sd_fail(e, "exercise library '%s' [%s]: 'direct' names no muscle", path, sec);
-	snprintf(key, sizeof key, "%s:indirect", sec);
-	if (parse_muscles(iniparser_getstring(d, key, ""), &x.indirect, path, sec, "indirect", e))
-		return -1;
-	x.indirect &= ~x.direct;
-	snprintf(key, sizeof key, "%s:aliases", sec);
-	if (parse_aliases(iniparser_getstring(d, key, ""), &x, e) || lib_put(lib, &x, e)) {
-		for (int i = 0; i < x.naliases; i++)
-			free(x.aliases[i]);
-		free(x.aliases);
+static int add_muscle(const char *name, void *arg, struct sd_err *e)
+{
+	struct mus_arg *a = arg;
+	int m = muscle_find(name);
+	if (m < 0)
+		return sd_fail(e, "cannot read exercise library '%s' line %d: unknown muscle '%s' in %s "
+			       "(see 'setdose exercises --muscles')", a->st->path, a->st->line, name, a->key);
+	*a->set |= (sd_mset)1 << m;
+	return 0;
+}
+
+static int add_alias(const char *name, void *arg, struct sd_err *e)
+{
+	struct sd_exercise *x = arg;
+	char **na = realloc(x->aliases, (size_t)(x->naliases + 1) * sizeof *na);
+	if (!na)
+		return sd_fail(e, "out of memory");
+	x->aliases = na;
+	if (!(x->aliases[x->naliases] = strdup(name)))
+		return sd_fail(e, "out of memory");
+	x->naliases++;
+	return 0;
+}
+
+static int finish(struct lib_state *st, struct sd_err *e)
+{
+	if (!st->open)
+		return 0;
+	st->open = 0;
+	if (!st->have_direct || !st->x.direct) {
+		sd_fail(e, "cannot read exercise library '%s' line %d: [%s] names no direct muscle",
+			st->path, st->line, st->x.name);
+		drop(&st->x);
 		return -1;
 	}
+	st->x.indirect &= ~st->x.direct;
+	if (lib_put(st->lib, &st->x, e)) {
+		drop(&st->x);
+		return -1;
+	}
+	memset(&st->x, 0, sizeof st->x);
 	return 0;
+}
+
+static int on_item(const struct sd_ini_item *it, void *arg, struct sd_err *e)
+{
+	struct lib_state *st = arg;
+	struct sd_exercise *x = &st->x;
+
+	if (!it->key) {
+		if (finish(st, e))
+			return -1;
+		st->line = it->line;
+		if (strlen(it->section) >= SD_NAME_MAX)
+			return sd_fail(e, "cannot read exercise library '%s' line %d: name too long '%s'",
+				       st->path, it->line, it->section);
+		snprintf(x->name, sizeof x->name, "%s", it->section);
+		snprintf(x->kind, sizeof x->kind, "other");
+		st->open = 1;
+		st->have_direct = 0;
+		return 0;
+	}
+	if (!st->open)
+		return sd_fail(e, "cannot read exercise library '%s' line %d: '%s' comes before any "
+			       "[exercise] section", st->path, it->line, it->key);
+	st->line = it->line;
+	if (!strcasecmp(it->key, "direct") || !strcasecmp(it->key, "indirect")) {
+		int direct = !strcasecmp(it->key, "direct");
+		struct mus_arg a = { st, direct ? "direct" : "indirect", direct ? &x->direct : &x->indirect };
+		st->have_direct |= direct;
+		return each_item(it->value, add_muscle, &a, e);
+	}
+	if (!strcasecmp(it->key, "aliases"))
+		return each_item(it->value, add_alias, x, e);
+	if (!strcasecmp(it->key, "kind")) {
+		snprintf(x->kind, sizeof x->kind, "%s", it->value);
+		return 0;
+	}
+	return sd_fail(e, "cannot read exercise library '%s' line %d: unknown key '%s' (expected "
+		       "aliases, kind, direct or indirect)", st->path, it->line, it->key);
 }
 
 int library_load_file(const char *path, struct sd_library *lib, struct sd_err *e)
 {
-	dictionary *d;
-	int rc = 0, n;
+	struct lib_state st;
+	char *text;
+	size_t len;
+	int rc;
 
-	if (access(path, R_OK))
-		return sd_fail(e, "cannot read exercise library '%s': %s", path, strerror(errno));
-	ini_error[0] = '\0';
-	iniparser_set_error_callback(ini_errback);
-	d = iniparser_load(path);
-	if (!d || ini_error[0]) {
-		char *nl = strchr(ini_error, '\n');
-		if (nl)
-			*nl = '\0';
-		if (d)
-			iniparser_freedict(d);
-		return sd_fail(e, "cannot read exercise library '%s': %s", path,
-			       ini_error[0] ? ini_error : "not an INI file");
-	}
-	n = iniparser_getnsec(d);
-	for (int i = 0; i < n && !rc; i++)
-		rc = load_section(d, path, iniparser_getsecname(d, i), lib, e);
-	iniparser_freedict(d);
-	return rc;
+	memset(&st, 0, sizeof st);
+	st.path = path;
+	st.lib = lib;
+	if (ini_slurp("exercise library", path, &text, &len, e))
+		return -1;
+	rc = ini_scan("exercise library", path, text, on_item, &st, e);
+	if (!rc)
+		rc = finish(&st, e);
+	else if (st.open)
+		drop(&st.x);
+	free(text);
+	return rc ? -1 : 0;
 }
 
 int library_load_all(const char *datadir, const char *extra, struct sd_library *lib,

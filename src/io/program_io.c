@@ -7,44 +7,13 @@
 #include <strings.h>
 
 #include "csv.h"
+#include "ini.h"
 
 #define SD_MAX_WEEKS 104
 
 int program_slurp(const char *path, char **text, size_t *len, struct sd_err *e)
 {
-	FILE *f = fopen(path, "rb");
-	char *buf = NULL;
-	size_t n = 0, cap = 0;
-
-	if (!f)
-		return sd_fail(e, "cannot read program '%s': %s", path, strerror(errno));
-	for (;;) {
-		if (cap - n < 4096) {
-			char *nb = realloc(buf, cap ? cap * 2 : 8192);
-			if (!nb) {
-				free(buf);
-				fclose(f);
-				return sd_fail(e, "out of memory");
-			}
-			buf = nb;
-			cap = cap ? cap * 2 : 8192;
-		}
-		size_t got = fread(buf + n, 1, cap - n - 1, f);
-		n += got;
-		if (got == 0)
-			break;
-	}
-	if (ferror(f)) {
-		sd_fail(e, "cannot read program '%s': %s", path, strerror(errno));
-		free(buf);
-		fclose(f);
-		return -1;
-	}
-	fclose(f);
-	buf[n] = '\0';
-	*text = buf;
-	*len = n;
-	return 0;
+	return ini_slurp("program", path, text, len, e);
 }
 
 static char *trim(char *s)
@@ -125,71 +94,39 @@ static int program_key(struct sd_program *p, const char *label, int line, const 
 		       "(expected name or weeks)", label, line, key);
 }
 
-/* INI is read line by line here rather than through iniparser: a program needs its days in
- * order, a line number for every message, and duplicate keys reported, none of which
- * iniparser keeps. */
-static int parse_ini(const char *label, char *text, const struct sd_library *lib,
-		     struct sd_program *p, struct sd_err *e)
-{
-	int line = 0, in_program = 0, seen_section = 0;
+struct ini_state {
+	const char *label;
+	const struct sd_library *lib;
+	struct sd_program *p;
+	int in_program;
+};
 
-	for (char *raw = text, *next; raw; raw = next) {
-		next = strchr(raw, '\n');
-		if (next)
-			*next++ = '\0';
-		line++;
-		char *s = trim(raw);
-		if (!*s || *s == ';' || *s == '#')
-			continue;
-		if (*s == '[') {
-			char *end = strchr(s, ']');
-			if (!end || *trim(end + 1))
-				return sd_fail(e, "cannot read program '%s' line %d: bad section header '%s'",
-					       label, line, s);
-			*end = '\0';
-			char *name = trim(s + 1);
-			if (!*name)
-				return sd_fail(e, "cannot read program '%s' line %d: empty day name", label, line);
-			seen_section = 1;
-			in_program = !strcasecmp(name, "program");
-			if (in_program)
-				continue;
-			if (find_day(p, name) >= 0)
-				return sd_fail(e, "cannot read program '%s' line %d: day '%s' appears twice",
-					       label, line, name);
-			if (strlen(name) >= sizeof p->days[0].name)
-				return sd_fail(e, "cannot read program '%s' line %d: day name too long", label, line);
-			if (prog_add_day(p, name, line, e))
-				return -1;
-			continue;
-		}
-		char *eq = strchr(s, '=');
-		if (!eq)
-			return sd_fail(e, "cannot read program '%s' line %d: expected 'exercise = sets', got '%s'",
-				       label, line, s);
-		*eq = '\0';
-		char *key = trim(s), *val = eq + 1;
-		char *comment = strpbrk(val, ";#");
-		if (comment)
-			*comment = '\0';
-		val = trim(val);
-		if (!*key)
-			return sd_fail(e, "cannot read program '%s' line %d: missing exercise name", label, line);
-		if (!seen_section)
-			return sd_fail(e, "cannot read program '%s' line %d: '%s' comes before any [day] section",
-				       label, line, key);
-		if (in_program) {
-			if (program_key(p, label, line, key, val, e))
-				return -1;
-			continue;
-		}
-		int sets, reps, rir;
-		if (prog_parse_sets(val, &sets, &reps, &rir, e))
-			return sd_wrap(e, "cannot read program '%s' line %d", label, line);
-		if (add_entry(p, lib, label, line, key, sets, reps, rir, e))
-			return -1;
+static int on_item(const struct sd_ini_item *it, void *arg, struct sd_err *e)
+{
+	struct ini_state *st = arg;
+	struct sd_program *p = st->p;
+	int sets, reps, rir;
+
+	if (!it->key) {
+		st->in_program = !strcasecmp(it->section, "program");
+		if (st->in_program)
+			return 0;
+		if (find_day(p, it->section) >= 0)
+			return sd_fail(e, "cannot read program '%s' line %d: day '%s' appears twice",
+				       st->label, it->line, it->section);
+		if (strlen(it->section) >= sizeof p->days[0].name)
+			return sd_fail(e, "cannot read program '%s' line %d: day name too long", st->label,
+				       it->line);
+		return prog_add_day(p, it->section, it->line, e);
 	}
-	return 0;
+	if (!it->section)
+		return sd_fail(e, "cannot read program '%s' line %d: '%s' comes before any [day] section",
+			       st->label, it->line, it->key);
+	if (st->in_program)
+		return program_key(p, st->label, it->line, it->key, it->value, e);
+	if (prog_parse_sets(it->value, &sets, &reps, &rir, e))
+		return sd_wrap(e, "cannot read program '%s' line %d", st->label, it->line);
+	return add_entry(p, st->lib, st->label, it->line, it->key, sets, reps, rir, e);
 }
 
 static int column(char **f, int n, const char *name)
@@ -296,7 +233,8 @@ int program_parse(const char *label, const char *text, size_t len, int is_csv,
 			return sd_fail(e, "out of memory");
 		memcpy(copy, text, len);
 		copy[len] = '\0';
-		rc = parse_ini(label, copy, lib, p, e);
+		struct ini_state st = { label, lib, p, 0 };
+		rc = ini_scan("program", label, copy, on_item, &st, e) ? -1 : 0;
 		free(copy);
 	}
 	if (!rc && p->nentries == 0)

@@ -1,0 +1,125 @@
+#include "ini.h"
+
+#include <errno.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+static char *trim(char *s)
+{
+	while (*s == ' ' || *s == '\t')
+		s++;
+	char *end = s + strlen(s);
+	while (end > s && (end[-1] == ' ' || end[-1] == '\t' || end[-1] == '\r'))
+		*--end = '\0';
+	return s;
+}
+
+/* A value may be quoted to keep ';' or '#' in it; otherwise they start a comment. */
+static char *value_of(char *v, int *bad)
+{
+	v = trim(v);
+	*bad = 0;
+	if (*v == '"') {
+		char *close = strchr(v + 1, '"');
+		if (!close) {
+			*bad = 1;
+			return v;
+		}
+		*close = '\0';
+		char *rest = trim(close + 1);
+		if (*rest && *rest != ';' && *rest != '#')
+			*bad = 1;
+		return v + 1;
+	}
+	char *comment = strpbrk(v, ";#");
+	if (comment)
+		*comment = '\0';
+	return trim(v);
+}
+
+int ini_scan(const char *what, const char *label, char *text, sd_ini_fn fn, void *arg,
+	     struct sd_err *e)
+{
+	struct sd_ini_item it = { NULL, NULL, NULL, 0 };
+	int rc;
+
+	for (char *raw = text, *next; raw; raw = next) {
+		next = strchr(raw, '\n');
+		if (next)
+			*next++ = '\0';
+		it.line++;
+		char *s = trim(raw);
+		if (!*s || *s == ';' || *s == '#')
+			continue;
+		if (*s == '[') {
+			char *end = strchr(s, ']');
+			char *rest = end ? trim(end + 1) : NULL;
+			if (!end || (*rest && *rest != ';' && *rest != '#'))
+				return sd_fail(e, "cannot read %s '%s' line %d: bad section header '%s'", what, label,
+					       it.line, s);
+			*end = '\0';
+			it.section = trim(s + 1);
+			if (!*it.section)
+				return sd_fail(e, "cannot read %s '%s' line %d: empty section name", what, label, it.line);
+			it.key = NULL;
+			it.value = NULL;
+			if ((rc = fn(&it, arg, e)))
+				return rc;
+			continue;
+		}
+		char *eq = strchr(s, '=');
+		if (!eq)
+			return sd_fail(e, "cannot read %s '%s' line %d: expected 'name = value', got '%s'", what, label,
+				       it.line, s);
+		*eq = '\0';
+		int bad;
+		it.key = trim(s);
+		it.value = value_of(eq + 1, &bad);
+		if (bad)
+			return sd_fail(e, "cannot read %s '%s' line %d: unclosed or misplaced quote", what, label, it.line);
+		if (!*it.key)
+			return sd_fail(e, "cannot read %s '%s' line %d: missing key before '='", what, label, it.line);
+		if ((rc = fn(&it, arg, e)))
+			return rc;
+	}
+	return 0;
+}
+
+int ini_slurp(const char *what, const char *path, char **text, size_t *len, struct sd_err *e)
+{
+	FILE *f = fopen(path, "rb");
+	char *buf = NULL;
+	size_t n = 0, cap = 0;
+
+	if (!f)
+		return sd_fail(e, "cannot read %s '%s': %s", what, path, strerror(errno));
+	for (;;) {
+		if (cap - n < 4096) {
+			char *nb = realloc(buf, cap ? cap * 2 : 8192);
+			if (!nb) {
+				free(buf);
+				fclose(f);
+				return sd_fail(e, "out of memory");
+			}
+			buf = nb;
+			cap = cap ? cap * 2 : 8192;
+		}
+		size_t got = fread(buf + n, 1, cap - n - 1, f);
+		n += got;
+		if (got == 0)
+			break;
+	}
+	if (ferror(f)) {
+		sd_fail(e, "cannot read %s '%s': %s", what, path, strerror(errno));
+		free(buf);
+		fclose(f);
+		return -1;
+	}
+	fclose(f);
+	buf[n] = '\0';
+	*text = buf;
+	*len = n;
+	return 0;
+}
+

@@ -1,0 +1,33 @@
+/* An ordered INI scanner with line numbers, for programs and the exercise library.
+ *
+ * iniparser (used for profiles) keeps neither the order of sections nor line numbers, drops
+ * duplicate keys silently, and loads in quadratic time; programs need all four, and the
+ * library is read on every run. Syntax: `[section]`, `key = value`, comments from ';' or '#'
+ * (at the start of a line, or after a value), blank lines. Keys and sections keep their case. */
+#ifndef SD_INI_H
+#define SD_INI_H
+
+#include <stddef.h>
+
+#include "../core/err.h"
+
+struct sd_ini_item {
+	const char *section;   /* NULL before the first section */
+	const char *key;       /* NULL for a section header */
+	const char *value;
+	int line;
+};
+
+/* Called once per section header (key NULL) and once per key; a non-zero return stops the
+ * scan and is returned (the callback fills e). */
+typedef int (*sd_ini_fn)(const struct sd_ini_item *it, void *arg, struct sd_err *e);
+
+/* Scans text in place (it is modified). Messages read "cannot read WHAT 'LABEL' line N: ...",
+ * e.g. what = "program", label = the file name. */
+int ini_scan(const char *what, const char *label, char *text, sd_ini_fn fn, void *arg,
+	     struct sd_err *e);
+
+/* Reads a whole file into a NUL-terminated malloc'd buffer; messages say "cannot read WHAT". */
+int ini_slurp(const char *what, const char *path, char **text, size_t *len, struct sd_err *e);
+
+#endif
