@@ -112,3 +112,15 @@ has err "missing \[terms\] names or beta"
 sed 's/^beta .*/beta = 0.25, -0.20, 0.01/' "$P/strength.ini" >short.ini
 run 1 "$SD" profile check short.ini
 has err "beta needs 4 numbers, one per term \(missing coefficient\?\)"
+mkdir adir
+run 1 "$SD" audit adir
+has err "^setdose: cannot read program 'adir': Is a directory"
+printf 'day,exercise,sets\nmon,bench press,3\nmon,nonsense lift,2\n' >bad.csv
+run 1 "$SD" audit bad.csv
+has err "^setdose: cannot read program 'bad.csv' line 3: unknown exercise 'nonsense lift'"
+printf '[squat]\ndirect = quads, wings\n' >badlib.ini
+run 1 "$SD" audit --exercises badlib.ini "$P/demo-minimal2.ini"
+has err "^setdose: cannot read exercise library 'badlib.ini' line 2: unknown muscle 'wings' in direct"
+printf '[my squat]\naliases = back squat\ndirect = quads\n' >clash.ini
+run 1 "$SD" audit --exercises clash.ini "$P/demo-minimal2.ini"
+has err "share the name or alias 'backsquat'"
