@@ -18,7 +18,7 @@ PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS) 2>/dev/null)
 # a short-lived process, and symbol lookup in eight shared objects was a third of a whole
 # audit's start-up. cairo and cJSON (no archive shipped) stay shared.
 STATIC_LIBS = -lsqlite3 -lgsl -lgslcblas -liniparser -lncursesw -ltinfo
-PKG_LIBS   := -Wl,-Bstatic $(STATIC_LIBS) -Wl,-Bdynamic $(shell pkg-config --libs cairo libcjson 2>/dev/null) -lpthread -ldl
+PKG_LIBS   := -Wl,-Bstatic $(STATIC_LIBS) -Wl,-Bdynamic $(shell pkg-config --libs cairo fontconfig libcjson 2>/dev/null) -lpthread -ldl
 CFLAGS_ALL  = -std=c11 -D_GNU_SOURCE -Wall -Wextra -Werror \
               -Wshadow -Wno-format-truncation -MMD -MP $(OPT) $(SAN) $(PKG_CFLAGS) \
               -DSD_DATADIR='"$(DATADIR)"' $(CFLAGS)
@@ -79,6 +79,7 @@ check:
 
 RESULTS ?= $(CURDIR)/$(B)/results.txt
 export ASAN_OPTIONS = detect_leaks=1:abort_on_error=1
+export LSAN_OPTIONS = suppressions=$(CURDIR)/tests/lsan.supp
 export UBSAN_OPTIONS = print_stacktrace=1:halt_on_error=1
 
 unit: $(TBIN)

@@ -7,6 +7,7 @@
 #include "../io/audit_out.h"
 #include "../io/program_io.h"
 #include "../io/table.h"
+#include "audit_all.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_audit;
@@ -55,13 +56,14 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 {
 	static const struct option longopts[] = {
 		{ "summary", no_argument, NULL, 's' },
+		{ "all", no_argument, NULL, 'a' },
 		{ "session-cap", required_argument, NULL, 'c' },
 		{ NULL, 0, NULL, 0 },
 	};
 	struct audit_args a = { 0, SD_SESSION_CAP };
 	struct sd_table *csv = NULL;
 	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7 };
-	int c, rc = 0;
+	int c, rc = 0, all = 0;
 	char *end;
 
 	optind = 0;
@@ -69,6 +71,9 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		switch (c) {
 		case 's':
 			a.summary = 1;
+			break;
+		case 'a':
+			all = 1;
 			break;
 		case 'c':
 			a.cap = strtod(optarg, &end);
@@ -79,6 +84,10 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 			return sd_usage(e, "usage: setdose %s", cmd_audit.usage);
 		}
 	}
+	if (all && optind < argc)
+		return sd_usage(e, "audit --all takes no PROGRAM files (it audits the open blocks)");
+	if (all)
+		return cmd_audit_all(ctx, a.cap, e);
 	if (optind >= argc)
 		return sd_usage(e, "audit needs at least one PROGRAM file (usage: setdose %s)",
 				cmd_audit.usage);
@@ -111,8 +120,11 @@ const struct sd_cmd cmd_audit = {
 	.name = "audit",
 	.summary = "weekly fractional sets per muscle of programs, placed on the curve",
 	.usage = "audit [--summary] [--session-cap SETS] PROGRAM...\n"
+		 "       setdose audit --all [--session-cap SETS]\n"
 		 "  PROGRAM         an INI or CSV program file (see 'man setdose', PROGRAM FILES)\n"
 		 "  --summary       one line per program and muscle instead of one report each\n"
+		 "  --all           every open block in the database, one line per athlete and\n"
+		 "                  muscle (the athlete's status, the block's planned weeks)\n"
 		 "  --session-cap N warn when a muscle gets more than N fractional sets in one\n"
 		 "                  session (default 10; common practice, no source)",
 	.flags = CMD_PROFILE | CMD_LIBRARY,

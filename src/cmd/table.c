@@ -4,7 +4,9 @@
 #include <string.h>
 
 extern const struct sd_cmd cmd_audit, cmd_curve, cmd_returns, cmd_exercises, cmd_profile,
-	cmd_help;
+	cmd_chart, cmd_report, cmd_help;
+extern const struct sd_cmd cmd_athlete, cmd_program, cmd_block, cmd_test, cmd_e1rm, cmd_response,
+	cmd_db;
 
 const struct sd_cmd *const sd_commands[] = {
 	&cmd_audit,
@@ -12,6 +14,15 @@ const struct sd_cmd *const sd_commands[] = {
 	&cmd_returns,
 	&cmd_exercises,
 	&cmd_profile,
+	&cmd_chart,
+	&cmd_report,
+	&cmd_athlete,
+	&cmd_program,
+	&cmd_block,
+	&cmd_test,
+	&cmd_e1rm,
+	&cmd_response,
+	&cmd_db,
 	&cmd_help,
 	NULL,
 };

@@ -153,3 +153,27 @@ done:
 	sqlite3_finalize(st);
 	return ret;
 }
+
+int db_block_open_widths(struct sd_db *db, int *athlete, int *program, long long *n,
+			 struct sd_err *e)
+{
+	sqlite3_stmt *st = NULL;
+	int ret = -1;
+
+	if (dbi_prepare(db, "SELECT coalesce(max(length(a.name)), 0), "
+			    "coalesce(max(length(p.name)), 0), count(*) FROM blocks b "
+			    "JOIN athletes a ON a.id = b.athlete_id JOIN programs p ON p.id = b.program_id "
+			    "WHERE b.end_date IS NULL", &st, e))
+		goto done;
+	if (sqlite3_step(st) != SQLITE_ROW) {
+		dbi_fail(db, e, "read blocks");
+		goto done;
+	}
+	*athlete = sqlite3_column_int(st, 0);
+	*program = sqlite3_column_int(st, 1);
+	*n = sqlite3_column_int64(st, 2);
+	ret = 0;
+done:
+	sqlite3_finalize(st);
+	return ret;
+}

@@ -134,6 +134,10 @@ int db_block_list(struct sd_db *db, long long athlete_id, struct db_block **out,
  * all at once. Returns 0, -1 on a store error, or the callback's non-zero value. */
 int db_block_each_open(struct sd_db *db, db_block_fn fn, void *arg, struct sd_err *e);
 
+/* Longest athlete and program names among the open blocks, and how many there are. */
+int db_block_open_widths(struct sd_db *db, int *athlete, int *program, long long *n,
+			 struct sd_err *e);
+
 /* Strength tests. */
 int db_test_add(struct sd_db *db, const struct db_test *t, long long *id, struct sd_err *e);
 /* Tests of one athlete, optionally of one lift (NULL: all), by lift, date, id; *out malloc'd. */

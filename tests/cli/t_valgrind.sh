@@ -10,3 +10,5 @@ run 0 vg "$SD" curve --program "$P/demo-minimal2.ini"
 run 0 vg "$SD" returns --format csv
 printf '[a]\nbench pres = 3\n' >bad.ini
 run 1 vg "$SD" audit bad.ini
+run 0 vg "$SD" chart --out c.png --program "$P/demo-minimal2.ini"
+run 0 vg "$SD" report --out r.pdf "$P/demo-minimal2.ini"

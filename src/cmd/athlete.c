@@ -1,0 +1,277 @@
+/* athlete: add, list, show, edit and remove the athletes kept in the database. */
+#include <getopt.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "../core/units.h"
+#include "../io/recout.h"
+#include "dbutil.h"
+
+extern const struct sd_cmd cmd_athlete;
+
+static int usage(struct sd_err *e)
+{
+	return sd_usage(e, "usage: setdose %s", cmd_athlete.usage);
+}
+
+/* Options of add and edit; --status and --units are global options (main.c). */
+static int parse_opts(int argc, char **argv, const char **notes, const char **rename, int edit,
+		      struct sd_err *e)
+{
+	static const struct option longopts[] = {
+		{ "notes", required_argument, NULL, 'n' },
+		{ "name", required_argument, NULL, 'r' },
+		{ NULL, 0, NULL, 0 },
+	};
+	int c;
+
+	optind = 0;
+	opterr = 0;
+	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
+		if (c == 'n')
+			*notes = optarg;
+		else if (c == 'r' && edit)
+			*rename = optarg;
+		else
+			return dbu_badopt(&cmd_athlete, argc, argv, e);
+	}
+	if (optind != argc - 1)
+		return usage(e);
+	if (*notes && strlen(*notes) >= DB_NOTES_MAX)
+		return sd_usage(e, "notes are too long (at most %d bytes)", DB_NOTES_MAX - 1);
+	return 0;
+}
+
+static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	struct db_athlete a;
+	const char *notes = NULL, *rename = NULL;
+
+	if (parse_opts(argc, argv, &notes, &rename, 0, e))
+		return -1;
+	if (dbu_name("athlete", argv[optind], DB_NAME_MAX, e))
+		return -1;
+	memset(&a, 0, sizeof a);
+	snprintf(a.name, sizeof a.name, "%s", argv[optind]);
+	snprintf(a.notes, sizeof a.notes, "%s", notes ? notes : "");
+	a.trained = ctx->opt.status_set && ctx->opt.trained >= 0.5;
+	a.units_lb = ctx->opt.units_lb;
+	if (db_begin(ctx->db, e) || db_athlete_add(ctx->db, &a, &a.id, e) ||
+	    db_commit(ctx->db, e))
+		return -1;
+	fprintf(ctx->out, "added athlete '%s' (%s, %s)\n", a.name,
+		a.trained ? "trained" : "untrained", units_name(a.units_lb));
+	return 0;
+}
+
+static int do_edit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	struct db_athlete a;
+	const char *notes = NULL, *rename = NULL;
+
+	if (parse_opts(argc, argv, &notes, &rename, 1, e))
+		return -1;
+	if (rename && dbu_name("athlete", rename, DB_NAME_MAX, e))
+		return -1;
+	if (db_begin(ctx->db, e) || db_athlete_get(ctx->db, argv[optind], &a, e))
+		return -1;
+	if (rename)
+		snprintf(a.name, sizeof a.name, "%s", rename);
+	if (notes)
+		snprintf(a.notes, sizeof a.notes, "%s", notes);
+	if (ctx->opt.status_set)
+		a.trained = ctx->opt.trained >= 0.5;
+	if (ctx->opt.units_set)
+		a.units_lb = ctx->opt.units_lb;
+	if (db_athlete_update(ctx->db, &a, e) || db_commit(ctx->db, e))
+		return -1;
+	fprintf(ctx->out, "athlete '%s': %s, %s\n", a.name, a.trained ? "trained" : "untrained",
+		units_name(a.units_lb));
+	return 0;
+}
+
+static int do_list(struct sd_ctx *ctx, int argc, struct sd_err *e)
+{
+	static const char *const heads[] = { "<name", "<status", "<units", "blocks", "tests",
+		"<created", "<notes" };
+	struct db_athlete *v = NULL;
+	struct sd_rec *r = NULL;
+	int n = 0, rc = -1;
+
+	if (argc != 1)
+		return usage(e);
+	if (db_athlete_list(ctx->db, &v, &n, e))
+		return -1;
+	if (!(r = rec_new(7, heads, ctx->opt.format))) {
+		sd_fail(e, "out of memory");
+		goto done;
+	}
+	for (int i = 0; i < n; i++) {
+		int nb, nt;
+		if (db_athlete_refs(ctx->db, v[i].id, &nb, &nt, e))
+			goto done;
+		if (rec_row(r)) {
+			sd_fail(e, "out of memory");
+			goto done;
+		}
+		rec_set(r, 0, "%s", v[i].name);
+		rec_set(r, 1, "%s", v[i].trained ? "trained" : "untrained");
+		rec_set(r, 2, "%s", units_name(v[i].units_lb));
+		rec_set(r, 3, "%d", nb);
+		rec_set(r, 4, "%d", nt);
+		rec_set(r, 5, "%.10s", v[i].created);
+		rec_set(r, 6, "%s", v[i].notes);
+	}
+	if (!n && ctx->opt.format == SD_FMT_TABLE)
+		fprintf(ctx->out, "no athletes yet (add one with 'setdose athlete add NAME')\n");
+	else
+		rec_print(r, ctx->out);
+	rc = 0;
+done:
+	rec_free(r);
+	free(v);
+	return rc;
+}
+
+static int do_show(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	struct db_athlete a;
+	struct db_block *b = NULL;
+	struct db_test *t = NULL;
+	int nb = 0, nt = 0, lb;
+
+	if (argc != 2)
+		return usage(e);
+	if (db_athlete_get(ctx->db, argv[1], &a, e) || db_block_list(ctx->db, a.id, &b, &nb, e))
+		return -1;
+	if (db_test_list(ctx->db, a.id, NULL, &t, &nt, e)) {
+		free(b);
+		return -1;
+	}
+	lb = dbu_lb(ctx, &a);
+	if (ctx->opt.format != SD_FMT_TABLE) {
+		/* Machine-readable detail is in 'block list' and 'test list'; this is the card. */
+		static const char *const heads[] = { "<name", "<status", "<units", "blocks", "tests",
+			"<created", "<notes" };
+		struct sd_rec *r = rec_new(7, heads, ctx->opt.format);
+		if (!r || rec_row(r)) {
+			rec_free(r);
+			free(b);
+			free(t);
+			return sd_fail(e, "out of memory");
+		}
+		rec_set(r, 0, "%s", a.name);
+		rec_set(r, 1, "%s", a.trained ? "trained" : "untrained");
+		rec_set(r, 2, "%s", units_name(a.units_lb));
+		rec_set(r, 3, "%d", nb);
+		rec_set(r, 4, "%d", nt);
+		rec_set(r, 5, "%s", a.created);
+		rec_set(r, 6, "%s", a.notes);
+		rec_print(r, ctx->out);
+		rec_free(r);
+		free(b);
+		free(t);
+		return 0;
+	}
+	fprintf(ctx->out, "athlete:  %s\nstatus:   %s\nunits:    %s\nadded:    %s UTC\n", a.name,
+		a.trained ? "trained" : "untrained", units_name(a.units_lb), a.created);
+	if (a.notes[0])
+		fprintf(ctx->out, "notes:    %s\n", a.notes);
+	fprintf(ctx->out, "blocks:   %d\n", nb);
+	for (int i = 0; i < nb; i++)
+		fprintf(ctx->out, "  %lld  %s  %s  %d weeks  %s%s\n", b[i].id, b[i].start,
+			b[i].end[0] ? b[i].end : "open", b[i].weeks, b[i].program,
+			b[i].end[0] ? "" : "  (open)");
+	fprintf(ctx->out, "tests:    %d\n", nt);
+	/* The latest test of each lift (the list is ordered by lift, then date). */
+	for (int i = 0; i < nt; i++) {
+		if (i + 1 < nt && !strcmp(t[i].lift, t[i + 1].lift))
+			continue;
+		fprintf(ctx->out, "  %-24s %s  1RM %.1f %s\n", t[i].lift, t[i].date,
+			units_show(t[i].e1rm_kg, lb), units_name(lb));
+	}
+	free(b);
+	free(t);
+	return 0;
+}
+
+static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	static const struct option longopts[] = {
+		{ "yes", no_argument, NULL, 'y' },
+		{ "cascade", no_argument, NULL, 'c' },
+		{ NULL, 0, NULL, 0 },
+	};
+	struct db_athlete a;
+	int c, yes = 0, cascade = 0, nb, nt;
+
+	optind = 0;
+	opterr = 0;
+	while ((c = getopt_long(argc, argv, "y", longopts, NULL)) != -1) {
+		if (c == 'y')
+			yes = 1;
+		else if (c == 'c')
+			cascade = 1;
+		else
+			return dbu_badopt(&cmd_athlete, argc, argv, e);
+	}
+	if (optind != argc - 1)
+		return usage(e);
+	if (db_begin(ctx->db, e) || db_athlete_get(ctx->db, argv[optind], &a, e) ||
+	    db_athlete_refs(ctx->db, a.id, &nb, &nt, e))
+		return -1;
+	if ((nb || nt) && !cascade)
+		return sd_fail(e, "athlete '%s' has %d block%s and %d test%s; not removed (use "
+			       "--cascade to remove them too)", a.name, nb, nb == 1 ? "" : "s", nt,
+			       nt == 1 ? "" : "s");
+	if (!yes) {
+		char q[256];
+		int ok;
+		snprintf(q, sizeof q, "remove athlete '%s' with %d block%s and %d test%s?", a.name,
+			 nb, nb == 1 ? "" : "s", nt, nt == 1 ? "" : "s");
+		ok = dbu_confirm(q, e);
+		if (ok < 0)
+			return -1;
+		if (!ok)
+			return sd_fail(e, "athlete '%s' not removed", a.name);
+	}
+	if (db_athlete_rm(ctx->db, a.id, cascade, e) || db_commit(ctx->db, e))
+		return -1;
+	fprintf(ctx->out, "removed athlete '%s' (%d block%s, %d test%s)\n", a.name, nb,
+		nb == 1 ? "" : "s", nt, nt == 1 ? "" : "s");
+	return 0;
+}
+
+static int exec_athlete(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	const char *sub = argc > 1 ? argv[1] : "";
+
+	if (!strcmp(sub, "add"))
+		return do_add(ctx, argc - 1, argv + 1, e);
+	if (!strcmp(sub, "list"))
+		return do_list(ctx, argc - 1, e);
+	if (!strcmp(sub, "show"))
+		return do_show(ctx, argc - 1, argv + 1, e);
+	if (!strcmp(sub, "edit"))
+		return do_edit(ctx, argc - 1, argv + 1, e);
+	if (!strcmp(sub, "rm"))
+		return do_rm(ctx, argc - 1, argv + 1, e);
+	return usage(e);
+}
+
+const struct sd_cmd cmd_athlete = {
+	.name = "athlete",
+	.summary = "add, list, show, edit or remove athletes in the database",
+	.usage = "athlete add NAME [--status trained|untrained] [--units kg|lb] [--notes TEXT]\n"
+		 "       setdose athlete list\n"
+		 "       setdose athlete show NAME\n"
+		 "       setdose athlete edit NAME [--name NEW] [--status S] [--units U] [--notes TEXT]\n"
+		 "       setdose athlete rm NAME [--yes] [--cascade]\n"
+		 "  --status     training status, used for the curve (default untrained)\n"
+		 "  --units      kg or lb: how this athlete's loads are entered and shown (default kg)\n"
+		 "  --cascade    also remove the athlete's blocks and tests (else rm refuses)\n"
+		 "  --yes        do not ask before removing",
+	.flags = CMD_DB,
+	.exec = exec_athlete,
+};

@@ -1,0 +1,131 @@
+/* audit --all: the audits of all open blocks. Blocks share few templates, statuses and
+ * lengths, so each (template, status, weeks) is parsed and audited once and reused. */
+#include <stdlib.h>
+#include <string.h>
+
+#include "../io/audit_out.h"
+#include "audit_all.h"
+#include "dbutil.h"
+
+#define CACHE_MAX 256   /* distinct (template, status, weeks) audits kept at once */
+
+struct entry {
+	long long program_id;
+	int trained, weeks;
+	char name[DB_PROGNAME_MAX];
+	struct sd_program prog;
+	struct sd_audit au;
+};
+
+struct walk {
+	struct sd_ctx *ctx;
+	struct sd_db *db;
+	double cap;
+	struct sd_sumout so;
+	struct entry *cache;
+	int n, first;
+	struct sd_err *e;
+};
+
+static void cache_clear(struct walk *w)
+{
+	for (int i = 0; i < w->n; i++) {
+		audit_free(&w->cache[i].au);
+		prog_free(&w->cache[i].prog);
+	}
+	w->n = 0;
+}
+
+static struct entry *lookup(struct walk *w, const struct db_block *b)
+{
+	struct db_program p;
+	struct entry *x;
+
+	for (int i = 0; i < w->n; i++) {
+		x = &w->cache[i];
+		if (x->program_id == b->program_id && x->trained == b->trained && x->weeks == b->weeks)
+			return x;
+	}
+	if (w->n == CACHE_MAX)
+		cache_clear(w);
+	if (db_program_get_id(w->db, b->program_id, &p, w->e))
+		return NULL;
+	x = &w->cache[w->n];
+	if (dbu_block_audit(w->ctx, b, &p, w->cap, &x->prog, &x->au, w->e)) {
+		db_program_free(&p);
+		return NULL;
+	}
+	x->program_id = b->program_id;
+	x->trained = b->trained;
+	x->weeks = b->weeks;
+	snprintf(x->name, sizeof x->name, "%s", p.name);
+	db_program_free(&p);
+	w->n++;
+	return x;
+}
+
+static int one_block(const struct db_block *b, void *arg)
+{
+	struct walk *w = arg;
+	struct entry *x = lookup(w, b);
+
+	if (!x)
+		return -1;
+	struct sd_audit_info in = { x->name, &x->prog, &w->ctx->profile, &x->au, b->athlete };
+	if (w->ctx->opt.format == SD_FMT_JSON) {
+		if (aout_json_item(w->ctx->out, &in, w->first))
+			return sd_fail(w->e, "out of memory");
+	} else {
+		aout_sum_rows(&w->so, &in);
+	}
+	w->first = 0;
+	return 0;
+}
+
+int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
+{
+	struct walk w;
+	struct sd_db *own = NULL;
+	char path[4096];
+	long long nopen;
+	int wa, wp, rc = -1;
+
+	memset(&w, 0, sizeof w);
+	if (!ctx->db) {
+		if (dbu_path(ctx, path, sizeof path, e) || db_open(path, &own, e))
+			return -1;
+	}
+	w.ctx = ctx;
+	w.db = own ? own : ctx->db;
+	w.cap = session_cap;
+	w.first = 1;
+	w.e = e;
+	w.cache = calloc(CACHE_MAX, sizeof *w.cache);
+	if (!w.cache) {
+		sd_fail(e, "out of memory");
+		goto done;
+	}
+	if (db_block_open_widths(w.db, &wa, &wp, &nopen, e))
+		goto done;
+	w.so = (struct sd_sumout){ ctx->out, ctx->opt.format == SD_FMT_CSV, 1,
+				   wa > 7 ? wa : 7, wp > 7 ? wp : 7 };
+	if (ctx->opt.format == SD_FMT_JSON)
+		aout_json_begin(ctx->out);
+	else if (nopen)
+		aout_sum_head(&w.so);
+	else if (ctx->opt.format == SD_FMT_TABLE)
+		fprintf(ctx->out, "no open blocks in %s\n", db_path(w.db));
+	if (db_block_each_open(w.db, one_block, &w, e))
+		goto done;
+	if (ctx->opt.format == SD_FMT_JSON)
+		aout_json_end(ctx->out);
+	else if (nopen)
+		cmd_print_caution(ctx);
+	rc = 0;
+done:
+	if (w.cache)
+		cache_clear(&w);
+	free(w.cache);
+	db_close(own);
+	return rc;
+}

@@ -1,0 +1,218 @@
+/* program: program templates stored in the database, kept as their source text. */
+#include <getopt.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <strings.h>
+
+#include "../io/program_io.h"
+#include "../io/recout.h"
+#include "dbutil.h"
+
+extern const struct sd_cmd cmd_program;
+
+static int usage(struct sd_err *e)
+{
+	return sd_usage(e, "usage: setdose %s", cmd_program.usage);
+}
+
+static int ends_with(const char *s, const char *suffix)
+{
+	size_t n = strlen(s), k = strlen(suffix);
+	return n >= k && !strcasecmp(s + n - k, suffix);
+}
+
+/* The stored name: --name, else the file's [program] name, else the file name without its
+ * folder and extension. */
+static void pick_name(const char *opt, const struct sd_program *p, const char *path, char *buf,
+		      size_t n)
+{
+	const char *base = strrchr(path, '/');
+	char *dot;
+
+	if (opt) {
+		snprintf(buf, n, "%s", opt);
+		return;
+	}
+	if (p->name[0]) {
+		snprintf(buf, n, "%s", p->name);
+		return;
+	}
+	snprintf(buf, n, "%s", base ? base + 1 : path);
+	dot = strrchr(buf, '.');
+	if (dot && dot != buf)
+		*dot = '\0';
+}
+
+/* Validates one file and stores it, inside the caller's transaction. */
+static int add_one(struct sd_ctx *ctx, const char *path, const char *name_opt, struct sd_err *e)
+{
+	struct sd_program prog;
+	char *text = NULL, name[DB_PROGNAME_MAX + 64];
+	size_t len = 0;
+	int is_csv = ends_with(path, ".csv"), rc = -1;
+
+	memset(&prog, 0, sizeof prog);
+	if (program_slurp(path, &text, &len, e))
+		return -1;
+	if (program_parse(path, text, len, is_csv, &ctx->lib, &prog, e))
+		goto done;
+	pick_name(name_opt, &prog, path, name, sizeof name);
+	if (dbu_name("program", name, DB_PROGNAME_MAX, e))
+		goto done;
+	if (db_program_add(ctx->db, name, text, len, is_csv, NULL, e))
+		goto done;
+	if (ctx->opt.format == SD_FMT_TABLE)
+		fprintf(ctx->out, "added program '%s' from %s (%d day%s, %d exercise entr%s)\n", name,
+			path, prog.ndays, prog.ndays == 1 ? "" : "s", prog.nentries,
+			prog.nentries == 1 ? "y" : "ies");
+	rc = 0;
+done:
+	prog_free(&prog);
+	free(text);
+	return rc;
+}
+
+static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	static const struct option longopts[] = {
+		{ "name", required_argument, NULL, 'n' },
+		{ NULL, 0, NULL, 0 },
+	};
+	const char *name = NULL;
+	int c;
+
+	optind = 0;
+	opterr = 0;
+	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
+		if (c != 'n')
+			return dbu_badopt(&cmd_program, argc, argv, e);
+		name = optarg;
+	}
+	if (optind >= argc)
+		return usage(e);
+	if (name && argc - optind > 1)
+		return sd_usage(e, "--name names one program; give one FILE with it");
+	/* All files in one transaction: either every template is stored or none is. */
+	if (db_begin(ctx->db, e))
+		return -1;
+	for (int i = optind; i < argc; i++)
+		if (add_one(ctx, argv[i], name, e))
+			return -1;
+	if (db_commit(ctx->db, e))
+		return -1;
+	if (ctx->opt.format == SD_FMT_TABLE && argc - optind > 1)
+		fprintf(ctx->out, "added %d programs\n", argc - optind);
+	return 0;
+}
+
+static int do_list(struct sd_ctx *ctx, int argc, struct sd_err *e)
+{
+	static const char *const heads[] = { "<name", "<format", "bytes", "blocks", "<created" };
+	struct db_program *v = NULL;
+	struct sd_rec *r = NULL;
+	int n = 0, rc = -1;
+
+	if (argc != 1)
+		return usage(e);
+	if (db_program_list(ctx->db, &v, &n, e))
+		return -1;
+	if (!(r = rec_new(5, heads, ctx->opt.format))) {
+		sd_fail(e, "out of memory");
+		goto done;
+	}
+	for (int i = 0; i < n; i++) {
+		int nb;
+		if (db_program_refs(ctx->db, v[i].id, &nb, e))
+			goto done;
+		if (rec_row(r)) {
+			sd_fail(e, "out of memory");
+			goto done;
+		}
+		rec_set(r, 0, "%s", v[i].name);
+		rec_set(r, 1, "%s", v[i].is_csv ? "csv" : "ini");
+		rec_set(r, 2, "%zu", v[i].len);
+		rec_set(r, 3, "%d", nb);
+		rec_set(r, 4, "%.10s", v[i].created);
+	}
+	if (!n && ctx->opt.format == SD_FMT_TABLE)
+		fprintf(ctx->out, "no programs yet (store one with 'setdose program add FILE')\n");
+	else
+		rec_print(r, ctx->out);
+	rc = 0;
+done:
+	rec_free(r);
+	db_program_list_free(v, n);
+	return rc;
+}
+
+static int do_show(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	struct db_program p;
+
+	if (argc != 2)
+		return usage(e);
+	if (db_program_get(ctx->db, argv[1], &p, e))
+		return -1;
+	/* Byte for byte: no newline added, no re-encoding. */
+	if (p.len && fwrite(p.source, 1, p.len, ctx->out) != p.len) {
+		db_program_free(&p);
+		return sd_fail(e, "cannot write output");
+	}
+	db_program_free(&p);
+	return 0;
+}
+
+static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	struct db_program p;
+	int rc, nb;
+
+	if (argc != 2)
+		return usage(e);
+	if (db_begin(ctx->db, e) || db_program_get(ctx->db, argv[1], &p, e))
+		return -1;
+	rc = db_program_refs(ctx->db, p.id, &nb, e);
+	if (!rc && nb)
+		rc = sd_fail(e, "program '%s' is used by %d block%s; not removed", p.name, nb,
+			     nb == 1 ? "" : "s");
+	if (!rc)
+		rc = db_program_rm(ctx->db, p.id, e);
+	if (!rc)
+		rc = db_commit(ctx->db, e);
+	if (!rc)
+		fprintf(ctx->out, "removed program '%s'\n", p.name);
+	db_program_free(&p);
+	return rc;
+}
+
+static int exec_program(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	const char *sub = argc > 1 ? argv[1] : "";
+
+	if (!strcmp(sub, "add"))
+		return do_add(ctx, argc - 1, argv + 1, e);
+	if (!strcmp(sub, "list"))
+		return do_list(ctx, argc - 1, e);
+	if (!strcmp(sub, "show"))
+		return do_show(ctx, argc - 1, argv + 1, e);
+	if (!strcmp(sub, "rm"))
+		return do_rm(ctx, argc - 1, argv + 1, e);
+	return usage(e);
+}
+
+const struct sd_cmd cmd_program = {
+	.name = "program",
+	.summary = "store program templates in the database, list, show or remove them",
+	.usage = "program add FILE... [--name NAME]\n"
+		 "       setdose program list\n"
+		 "       setdose program show NAME\n"
+		 "       setdose program rm NAME\n"
+		 "  add      checks each file like 'audit' does, then stores its text verbatim\n"
+		 "           (all files or none); the name is --name, else the file's [program]\n"
+		 "           name, else the file name\n"
+		 "  show     prints the stored text back byte for byte\n"
+		 "  rm       refuses while a block uses the template",
+	.flags = CMD_DB | CMD_LIBRARY,
+	.exec = exec_program,
+};

@@ -1,0 +1,388 @@
+/* response: did the athlete respond as predicted? For each completed block and each tested
+ * lift with a test near the block's start and one near its end, the observed change against
+ * the curve's prediction for the dose of the lift's prime movers, and the athlete's personal
+ * response (core/response.h has the model). */
+#include <getopt.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "../core/response.h"
+#include "../core/units.h"
+#include "../io/recout.h"
+#include "dbutil.h"
+
+extern const struct sd_cmd cmd_response;
+
+#define WINDOW_DAYS 14   /* "near" a block's start or end; common practice, no source */
+
+struct rargs {
+	long long block;        /* 0: all */
+	int window;
+	struct resp_opts ro;
+};
+
+struct row {
+	long long block;
+	char lift[DB_NAME_MAX];
+	const struct db_test *pre, *post;
+	double dose, weeks;
+	struct sd_point pt;
+	struct resp_obs ob;
+	struct resp_fit fit;
+};
+
+struct rows {
+	struct row *v;
+	int n, cap, nblocks;
+};
+
+static long day(const char *date)
+{
+	long d = 0;
+	date_parse(date, &d, NULL);
+	return d;
+}
+
+/* The test of `lift` nearest to `target` within the window; on a tie the one farther outside
+ * the block (earlier for the start, later for the end), so the pair spans the whole block. */
+static const struct db_test *nearest(const struct db_test *t, int n, const char *lift,
+				     long target, int window, int later)
+{
+	const struct db_test *best = NULL;
+	long bestd = 0;
+
+	for (int i = 0; i < n; i++) {
+		long d;
+		if (strcmp(t[i].lift, lift))
+			continue;
+		d = labs(day(t[i].date) - target);
+		if (d > window)
+			continue;
+		if (!best || d < bestd || (d == bestd && (later ? strcmp(t[i].date, best->date) > 0
+							     : strcmp(t[i].date, best->date) < 0))) {
+			best = &t[i];
+			bestd = d;
+		}
+	}
+	return best;
+}
+
+/* Weekly fractional sets of the lift's prime movers, averaged over them; -1 without any. */
+static double lift_dose(const struct sd_ctx *ctx, const struct sd_audit *au, const char *lift)
+{
+	int k = lib_find(&ctx->lib, lift), nm = 0;
+	double sum = 0;
+
+	if (k < 0)
+		return -1;
+	for (int m = 0; m < SD_NMUSCLES; m++)
+		if (ctx->lib.ex[k].direct & ((sd_mset)1 << m)) {
+			sum += au->row[m].dose.fractional;
+			nm++;
+		}
+	return nm ? sum / nm : -1;
+}
+
+static int add_row(struct rows *rs, const struct row *r, struct sd_err *e)
+{
+	if (rs->n == rs->cap) {
+		int ncap = rs->cap ? 2 * rs->cap : 16;
+		struct row *nv = realloc(rs->v, (size_t)ncap * sizeof *nv);
+		if (!nv)
+			return sd_fail(e, "out of memory");
+		rs->v = nv;
+		rs->cap = ncap;
+	}
+	rs->v[rs->n++] = *r;
+	return 0;
+}
+
+/* All observations of one completed block. */
+static int block_rows(struct sd_ctx *ctx, const struct rargs *ra, const struct db_block *b,
+		      const struct db_test *t, int nt, struct rows *rs, struct sd_err *e)
+{
+	struct db_program p = { 0 };
+	struct sd_program prog = { 0 };
+	struct sd_audit au = { 0 };
+	struct sd_covars cov = { dbu_block_weeks(b), b->trained };
+	long s = day(b->start), f = day(b->end);
+	int rc = -1, before = rs->n;
+
+	if (db_program_get_id(ctx->db, b->program_id, &p, e) ||
+	    dbu_block_audit(ctx, b, &p, SD_SESSION_CAP, &prog, &au, e))
+		goto done;
+	for (int i = 0; i < nt; i++) {
+		struct row r;
+		if (i > 0 && !strcmp(t[i].lift, t[i - 1].lift))
+			continue;   /* one row per lift: the list is ordered by lift */
+		memset(&r, 0, sizeof r);
+		r.pre = nearest(t, nt, t[i].lift, s, ra->window, 0);
+		r.post = nearest(t, nt, t[i].lift, f, ra->window, 1);
+		if (!r.pre || !r.post || strcmp(r.pre->date, r.post->date) >= 0)
+			continue;
+		r.dose = lift_dose(ctx, &au, t[i].lift);
+		if (r.dose < 0)
+			continue;   /* a lift no longer in the library, or with no prime mover */
+		r.block = b->id;
+		r.weeks = cov.weeks;
+		snprintf(r.lift, sizeof r.lift, "%s", t[i].lift);
+		curve_eval(&ctx->profile, &cov, r.dose, ra->ro.level, &r.pt);
+		r.ob.obs = log(r.post->e1rm_kg / r.pre->e1rm_kg);
+		r.ob.yhat = r.pt.y;
+		r.ob.sp = r.pt.sp;
+		resp_observe(&r.ob, &ra->ro, &r.fit);
+		if (add_row(rs, &r, e))
+			goto done;
+	}
+	if (rs->n > before)
+		rs->nblocks++;
+	rc = 0;
+done:
+	audit_free(&au);
+	prog_free(&prog);
+	db_program_free(&p);
+	return rc;
+}
+
+static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, struct sd_err *e)
+{
+	static const struct option longopts[] = {
+		{ "block", required_argument, NULL, 'b' },
+		{ "prior-sd", required_argument, NULL, 'p' },
+		{ "test-error", required_argument, NULL, 't' },
+		{ "window", required_argument, NULL, 'w' },
+		{ NULL, 0, NULL, 0 },
+	};
+	long long v;
+	int c;
+
+	ra->block = 0;
+	ra->window = WINDOW_DAYS;
+	ra->ro.test_sd = RESP_TEST_SD;
+	ra->ro.prior_sd = RESP_PRIOR_SD;
+	ra->ro.level = ctx->opt.level;
+	optind = 0;
+	opterr = 0;
+	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
+		switch (c) {
+		case 'b':
+			if (dbu_int("--block", optarg, 1, 0x7fffffffffffffffLL, &ra->block, e))
+				return -1;
+			break;
+		case 'p':
+			if (dbu_num("--prior-sd", optarg, 1e-4, 2, &ra->ro.prior_sd, e))
+				return -1;
+			break;
+		case 't':
+			if (dbu_num("--test-error", optarg, 0, 1, &ra->ro.test_sd, e))
+				return -1;
+			break;
+		case 'w':
+			if (dbu_int("--window", optarg, 0, 365, &v, e))
+				return -1;
+			ra->window = (int)v;
+			break;
+		default:
+			return dbu_badopt(&cmd_response, argc, argv, e);
+		}
+	}
+	if (optind != argc - 1)
+		return sd_usage(e, "usage: setdose %s", cmd_response.usage);
+	return resp_check_opts(&ra->ro, e);
+}
+
+/* Table cells are rounded for reading; CSV and JSON keep enough digits to recompute. */
+static void set_row(struct sd_rec *r, const struct row *w, int lb, int precise)
+{
+	const char *pct = precise ? "%.4f" : "%.1f";
+	int c = 0;
+
+	rec_set(r, c++, "%lld", w->block);
+	rec_set(r, c++, "%s", w->lift);
+	rec_set(r, c++, "%s", w->pre->date);
+	rec_set(r, c++, "%s", w->post->date);
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->pre->e1rm_kg, lb));
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->post->e1rm_kg, lb));
+	rec_set(r, c++, pct, curve_pct(w->ob.obs));
+	rec_set(r, c++, precise ? "%.6f" : "%.4f", w->ob.obs);
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", w->dose);
+	rec_set(r, c++, pct, curve_pct(w->pt.y));
+	rec_set(r, c++, pct, curve_pct(w->fit.lo));
+	rec_set(r, c++, pct, curve_pct(w->fit.hi));
+	rec_set(r, c++, precise ? "%.3f" : "%.0f", w->fit.pctile);
+}
+
+static const char *const heads[] = { "block", "<lift", "<pre", "<post", "e1rm_pre", "e1rm_post",
+	"change%", "lnRR", "dose", "predicted%", "pi_low%", "pi_high%", "percentile" };
+
+static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const struct rargs *ra,
+			const struct rows *rs, const struct sd_rec *r, const struct resp_personal *pr,
+			int lb)
+{
+	int lvl = (int)lround(ra->ro.level * 100);
+
+	fprintf(ctx->out, "athlete %s (%s); profile %s; loads in %s\n", a->name,
+		a->trained ? "trained" : "untrained", ctx->profile.name, units_name(lb));
+	fprintf(ctx->out, "test error %.3f per 1RM test (log scale, --test-error); prior SD of "
+		"personal deviations %.3f, variance %.5f (--prior-sd);\ntests within %d days of a "
+		"block's start and end (--window)\n\n", ra->ro.test_sd, ra->ro.prior_sd,
+		ra->ro.prior_sd * ra->ro.prior_sd, ra->window);
+	if (rec_rows(r))
+		rec_print(r, ctx->out);
+	else
+		fprintf(ctx->out, "no completed block%s with a test of the same lift near its start "
+			"and its end\n", ra->block ? " (of those asked)" : "");
+	fprintf(ctx->out, "\ndose: weekly fractional sets of the lift's prime movers; predicted: "
+		"the curve for that dose,\nthe athlete's status and the block's length, with its "
+		"%d%% prediction interval (test error\nincluded); percentile: where the observed "
+		"change falls in that predictive distribution.\n\n", lvl);
+	fprintf(ctx->out, "personal response: %+.1f%% (lnRR %+.4f), %d%% interval %+.1f%% to %+.1f%%\n",
+		curve_pct(pr->mean), pr->mean, lvl, curve_pct(pr->lo), curve_pct(pr->hi));
+	if (pr->n)
+		fprintf(ctx->out, "  from %d observation%s in %d completed block%s (all of the "
+			"athlete's); unshrunk mean deviation %+.1f%% (SE %.4f lnRR);\n  weight of the "
+			"data %.2f, of the prior %.2f (empirical-Bayes shrinkage toward 0)\n", pr->n,
+			pr->n == 1 ? "" : "s", rs->nblocks, rs->nblocks == 1 ? "" : "s",
+			curve_pct(pr->raw), pr->raw_se, pr->weight, 1 - pr->weight);
+	else
+		fprintf(ctx->out, "  no observations yet: this is the prior, centred on the curve\n");
+	cmd_print_caution(ctx);
+}
+
+static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const struct rargs *ra,
+		      const struct rows *rs, const struct sd_rec *r, const struct resp_personal *pr,
+		      struct sd_err *e)
+{
+	char *name = rec_json_string(a->name), *prof = rec_json_string(ctx->profile.name);
+	char test[32], prior[32], level[32], window[16], personal[640];
+	const char *extra[] = { "athlete", name, "status", a->trained ? "\"trained\"" : "\"untrained\"",
+		"profile", prof, "test_error", test, "prior_sd", prior, "level", level,
+		"window_days", window, "personal", personal, NULL };
+
+	if (!name || !prof) {
+		free(name);
+		free(prof);
+		return sd_fail(e, "out of memory");
+	}
+	snprintf(test, sizeof test, "%.6g", ra->ro.test_sd);
+	snprintf(prior, sizeof prior, "%.6g", ra->ro.prior_sd);
+	snprintf(level, sizeof level, "%.6g", ra->ro.level);
+	snprintf(window, sizeof window, "%d", ra->window);
+	snprintf(personal, sizeof personal,
+		 "{\"observations\": %d, \"blocks\": %d, \"lnrr\": %.6f, \"sd\": %.6f, "
+		 "\"low\": %.6f, \"high\": %.6f, \"pct\": %.3f, \"pct_low\": %.3f, \"pct_high\": %.3f, "
+		 "\"unshrunk_lnrr\": %.6f, \"unshrunk_se\": %.6f, \"data_weight\": %.4f}",
+		 pr->n, rs->nblocks, pr->mean, pr->sd, pr->lo, pr->hi, curve_pct(pr->mean),
+		 curve_pct(pr->lo), curve_pct(pr->hi), pr->raw, pr->raw_se, pr->weight);
+	rec_print_json_object(r, "observations", ctx->out, extra);
+	free(name);
+	free(prof);
+	return 0;
+}
+
+static int print_csv(struct sd_ctx *ctx, const struct rargs *ra, const struct rows *rs,
+		     const struct sd_rec *r, const struct resp_personal *pr)
+{
+	rec_print(r, ctx->out);
+	/* The personal estimate as a second table after a blank line. */
+	fprintf(ctx->out, "\nobservations,blocks,lnrr,sd,low,high,pct,pct_low,pct_high,unshrunk_lnrr,"
+		"unshrunk_se,data_weight,prior_sd,test_error,level\n");
+	fprintf(ctx->out, "%d,%d,%.6f,%.6f,%.6f,%.6f,%.3f,%.3f,%.3f,%.6f,%.6f,%.4f,%g,%g,%g\n",
+		pr->n, rs->nblocks, pr->mean, pr->sd, pr->lo, pr->hi, curve_pct(pr->mean),
+		curve_pct(pr->lo), curve_pct(pr->hi), pr->raw, pr->raw_se, pr->weight,
+		ra->ro.prior_sd, ra->ro.test_sd, ra->ro.level);
+	return 0;
+}
+
+static int exec_response(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	struct rargs ra;
+	struct db_athlete a;
+	struct db_block *b = NULL;
+	struct db_test *t = NULL;
+	struct rows rs = { 0 };
+	struct resp_obs *obs = NULL;
+	struct resp_personal pr;
+	struct sd_rec *r = NULL;
+	int nb = 0, nt = 0, rc = -1, lb, found = 0;
+
+	if (parse(ctx, argc, argv, &ra, e))
+		return -1;
+	if (db_athlete_get(ctx->db, argv[optind], &a, e))
+		return -1;
+	if (db_block_list(ctx->db, a.id, &b, &nb, e) ||
+	    db_test_list(ctx->db, a.id, NULL, &t, &nt, e))
+		goto done;
+	for (int i = 0; i < nb; i++) {
+		if (ra.block && b[i].id == ra.block) {
+			found = 1;
+			if (!b[i].end[0]) {
+				sd_fail(e, "block %lld is still open (end it with 'setdose block end %lld')",
+					ra.block, ra.block);
+				goto done;
+			}
+		}
+		if (b[i].end[0] && block_rows(ctx, &ra, &b[i], t, nt, &rs, e))
+			goto done;
+	}
+	if (ra.block && !found) {
+		sd_fail(e, "block %lld is not one of athlete '%s''s blocks", ra.block, a.name);
+		goto done;
+	}
+	/* The personal estimate uses every completed block; --block only limits the rows shown. */
+	if (rs.n && !(obs = malloc((size_t)rs.n * sizeof *obs))) {
+		sd_fail(e, "out of memory");
+		goto done;
+	}
+	for (int i = 0; i < rs.n; i++)
+		obs[i] = rs.v[i].ob;
+	if (resp_personal(obs, rs.n, &ra.ro, &pr, e))
+		goto done;
+	lb = dbu_lb(ctx, &a);
+	if (!(r = rec_new(13, heads, ctx->opt.format))) {
+		sd_fail(e, "out of memory");
+		goto done;
+	}
+	for (int i = 0; i < rs.n; i++) {
+		if (ra.block && rs.v[i].block != ra.block)
+			continue;
+		if (rec_row(r)) {
+			sd_fail(e, "out of memory");
+			goto done;
+		}
+		set_row(r, &rs.v[i], lb, ctx->opt.format != SD_FMT_TABLE);
+	}
+	if (ctx->opt.format == SD_FMT_JSON)
+		rc = print_json(ctx, &a, &ra, &rs, r, &pr, e);
+	else if (ctx->opt.format == SD_FMT_CSV)
+		rc = print_csv(ctx, &ra, &rs, r, &pr);
+	else {
+		print_table(ctx, &a, &ra, &rs, r, &pr, lb);
+		rc = 0;
+	}
+done:
+	rec_free(r);
+	free(obs);
+	free(rs.v);
+	free(t);
+	free(b);
+	return rc;
+}
+
+const struct sd_cmd cmd_response = {
+	.name = "response",
+	.summary = "did the athlete respond as predicted? observed vs predicted gains per block",
+	.usage = "response ATHLETE [--block ID] [--prior-sd SD] [--test-error SD] [--window DAYS]\n"
+		 "  for each completed block and tested lift with a test near the block's start and\n"
+		 "  one near its end: observed change, the curve's prediction for the dose of the\n"
+		 "  lift's prime movers, and the observation's percentile; then the athlete's\n"
+		 "  personal response (empirical-Bayes deviation from the curve, shrunk toward 0)\n"
+		 "  --block ID       show only this block's rows (the personal estimate uses all)\n"
+		 "  --prior-sd SD    prior SD of personal deviations, log scale (default 0.05)\n"
+		 "  --test-error SD  1RM test-retest error per test, log scale (default 0.03)\n"
+		 "  --window DAYS    how near a test must be to a block's start or end (default 14)",
+	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,
+	.exec = exec_response,
+};

@@ -1,0 +1,168 @@
+/* test: strength tests (a load lifted for some reps) and the 1RM they estimate. */
+#include <getopt.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "../core/e1rm.h"
+#include "../core/units.h"
+#include "../io/recout.h"
+#include "dbutil.h"
+
+extern const struct sd_cmd cmd_test;
+
+static int usage(struct sd_err *e)
+{
+	return sd_usage(e, "usage: setdose %s", cmd_test.usage);
+}
+
+/* The library's name for LIFT, or an error suggesting the closest names. */
+static int find_lift(const struct sd_library *lib, const char *lift, char *buf, size_t n,
+		     struct sd_err *e)
+{
+	int k = lib_find(lib, lift), near[3], nn;
+	char hint[200] = "";
+
+	if (k >= 0) {
+		snprintf(buf, n, "%s", lib->ex[k].name);
+		return 0;
+	}
+	nn = lib_suggest(lib, lift, near, 3);
+	for (int i = 0; i < nn; i++)
+		snprintf(hint + strlen(hint), sizeof hint - strlen(hint), "%s'%s'",
+			 i ? ", " : " (did you mean ", lib->ex[near[i]].name);
+	return sd_fail(e, "unknown lift '%s'%s%s", lift, hint, nn ? ")" : "");
+}
+
+static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	static const struct option longopts[] = {
+		{ "date", required_argument, NULL, 'd' },
+		{ "formula", required_argument, NULL, 'f' },
+		{ NULL, 0, NULL, 0 },
+	};
+	struct db_athlete a;
+	struct db_test t;
+	long long reps = 1;
+	int c, f = E1RM_DEFAULT, have_date = 0, warn, lb;
+
+	memset(&t, 0, sizeof t);
+	if (dbu_no_negatives(argc, argv, e))
+		return -1;
+	optind = 0;
+	opterr = 0;
+	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
+		if (c == 'd') {
+			if (dbu_date("--date", optarg, t.date, e))
+				return -1;
+			have_date = 1;
+		} else if (c == 'f') {
+			if ((f = e1rm_find(optarg)) < 0)
+				return sd_usage(e, "unknown formula '%s' (see 'setdose e1rm --formula all')",
+						optarg);
+		} else {
+			return dbu_badopt(&cmd_test, argc, argv, e);
+		}
+	}
+	if (argc - optind < 3 || argc - optind > 4)
+		return usage(e);
+	if (argc - optind == 4 &&
+	    dbu_int("REPS", argv[optind + 3], 1, 1000, &reps, e))
+		return -1;
+	if (!have_date && dbu_today(t.date, e))
+		return -1;
+	if (find_lift(&ctx->lib, argv[optind + 1], t.lift, sizeof t.lift, e))
+		return -1;
+	if (db_begin(ctx->db, e) || db_athlete_get(ctx->db, argv[optind], &a, e))
+		return -1;
+	lb = dbu_lb(ctx, &a);
+	if (units_parse_load(argv[optind + 2], lb, &t.load_kg, e) ||
+	    e1rm_estimate(f, t.load_kg, (int)reps, &t.e1rm_kg, &warn, e))
+		return -1;
+	t.athlete_id = a.id;
+	t.reps = (int)reps;
+	snprintf(t.formula, sizeof t.formula, "%s", reps == 1 ? "tested" : e1rm_name(f));
+	if (db_test_add(ctx->db, &t, &t.id, e) || db_commit(ctx->db, e))
+		return -1;
+	if (warn)
+		fprintf(stderr, "setdose: warning: %lld reps: 1RM estimates lose accuracy above %d reps "
+			"(Reynolds, Gordon & Robergs 2006)\n", reps, E1RM_WARN_REPS);
+	fprintf(ctx->out, "added test %lld: %s, %s %.1f %s x %lld on %s; 1RM %.1f %s (%s)\n", t.id,
+		a.name, t.lift, units_show(t.load_kg, lb), units_name(lb), reps, t.date,
+		units_show(t.e1rm_kg, lb), units_name(lb), t.formula);
+	return 0;
+}
+
+static int do_list(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	static const char *const heads[] = { "id", "<date", "<lift", "load", "reps", "e1rm",
+		"<unit", "<formula" };
+	struct db_athlete a;
+	struct db_test *v = NULL;
+	struct sd_rec *r = NULL;
+	char lift[DB_NAME_MAX];
+	int n = 0, rc = -1, lb;
+
+	if (argc < 2 || argc > 3)
+		return usage(e);
+	if (db_athlete_get(ctx->db, argv[1], &a, e))
+		return -1;
+	if (argc == 3 && find_lift(&ctx->lib, argv[2], lift, sizeof lift, e))
+		return -1;
+	if (db_test_list(ctx->db, a.id, argc == 3 ? lift : NULL, &v, &n, e))
+		return -1;
+	lb = dbu_lb(ctx, &a);
+	if (!(r = rec_new(8, heads, ctx->opt.format))) {
+		sd_fail(e, "out of memory");
+		goto done;
+	}
+	for (int i = 0; i < n; i++) {
+		if (rec_row(r)) {
+			sd_fail(e, "out of memory");
+			goto done;
+		}
+		rec_set(r, 0, "%lld", v[i].id);
+		rec_set(r, 1, "%s", v[i].date);
+		rec_set(r, 2, "%s", v[i].lift);
+		rec_set(r, 3, "%.1f", units_show(v[i].load_kg, lb));
+		rec_set(r, 4, "%d", v[i].reps);
+		rec_set(r, 5, "%.1f", units_show(v[i].e1rm_kg, lb));
+		rec_set(r, 6, "%s", units_name(lb));
+		rec_set(r, 7, "%s", v[i].formula);
+	}
+	if (!n && ctx->opt.format == SD_FMT_TABLE)
+		fprintf(ctx->out, "no tests for '%s' yet\n", a.name);
+	else
+		rec_print(r, ctx->out);
+	rc = 0;
+done:
+	rec_free(r);
+	free(v);
+	return rc;
+}
+
+static int exec_test(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	const char *sub = argc > 1 ? argv[1] : "";
+
+	if (!strcmp(sub, "add"))
+		return do_add(ctx, argc - 1, argv + 1, e);
+	if (!strcmp(sub, "list"))
+		return do_list(ctx, argc - 1, argv + 1, e);
+	return usage(e);
+}
+
+const struct sd_cmd cmd_test = {
+	.name = "test",
+	.summary = "record strength tests (1RM, or estimated from a rep set) and list them",
+	.usage = "test add ATHLETE LIFT LOAD [REPS] [--date DATE] [--formula NAME]\n"
+		 "       setdose test list ATHLETE [LIFT]\n"
+		 "  LIFT       an exercise of the library (see 'setdose exercises')\n"
+		 "  LOAD       in the athlete's units, or with a unit: 100kg, 225lb\n"
+		 "  REPS       reps to failure with LOAD (default 1: a tested 1RM); above 1 the 1RM\n"
+		 "             is estimated, with a warning above 10 reps; more than 20 is refused\n"
+		 "  --formula  1RM equation (default brzycki; see 'setdose e1rm --formula all')\n"
+		 "  --date     day of the test (default today)",
+	.flags = CMD_DB | CMD_LIBRARY,
+	.exec = exec_test,
+};

@@ -1,0 +1,423 @@
+#include "chart.h"
+
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+#include <strings.h>
+
+#include <cairo.h>
+#include <cairo-pdf.h>
+#include <cairo-svg.h>
+#include <fontconfig/fontconfig.h>
+
+#include "../core/curve.h"
+
+/* This project's palette: slate text, a teal curve on sand-coloured bands. */
+#define INK 0.16, 0.20, 0.25
+#define GRID 0.86, 0.86, 0.84
+#define BAND_PI 0.93, 0.89, 0.80
+#define BAND_CI 0.80, 0.74, 0.60
+#define CURVE 0.05, 0.45, 0.47
+#define MARK 0.70, 0.25, 0.15
+
+enum fmt { FMT_NONE, FMT_PNG, FMT_SVG, FMT_PDF };
+
+static enum fmt format_of(const char *path)
+{
+	const char *dot = strrchr(path, '.');
+	if (!dot)
+		return FMT_NONE;
+	if (!strcasecmp(dot, ".png"))
+		return FMT_PNG;
+	if (!strcasecmp(dot, ".svg"))
+		return FMT_SVG;
+	if (!strcasecmp(dot, ".pdf"))
+		return FMT_PDF;
+	return FMT_NONE;
+}
+
+int chart_format_ok(const char *path)
+{
+	return format_of(path) != FMT_NONE;
+}
+
+struct frame {
+	double x, y, w, h;        /* plot area in device units */
+	double x0, x1, y0, y1;    /* data range */
+};
+
+static double px(const struct frame *f, double x)
+{
+	return f->x + (x - f->x0) / (f->x1 - f->x0) * f->w;
+}
+
+static double py(const struct frame *f, double y)
+{
+	return f->y + f->h - (y - f->y0) / (f->y1 - f->y0) * f->h;
+}
+
+static void text(cairo_t *cr, double x, double y, double size, int bold, double align,
+		 const char *s)
+{
+	cairo_text_extents_t ext;
+	cairo_select_font_face(cr, "sans-serif", CAIRO_FONT_SLANT_NORMAL,
+			       bold ? CAIRO_FONT_WEIGHT_BOLD : CAIRO_FONT_WEIGHT_NORMAL);
+	cairo_set_font_size(cr, size);
+	cairo_text_extents(cr, s, &ext);
+	cairo_move_to(cr, x - align * ext.x_advance, y);
+	cairo_show_text(cr, s);
+}
+
+static void band(cairo_t *cr, const struct frame *f, const struct sd_chart *c, int pred)
+{
+	const int n = 120;
+	struct sd_point pt;
+	for (int i = 0; i <= n; i++) {
+		double x = f->x0 + (f->x1 - f->x0) * i / n;
+		curve_eval(c->prof, &c->cov, x, c->level, &pt);
+		double v = curve_pct(pred ? pt.pi_hi : pt.ci_hi);
+		if (i == 0)
+			cairo_move_to(cr, px(f, x), py(f, v));
+		else
+			cairo_line_to(cr, px(f, x), py(f, v));
+	}
+	for (int i = n; i >= 0; i--) {
+		double x = f->x0 + (f->x1 - f->x0) * i / n;
+		curve_eval(c->prof, &c->cov, x, c->level, &pt);
+		cairo_line_to(cr, px(f, x), py(f, curve_pct(pred ? pt.pi_lo : pt.ci_lo)));
+	}
+	cairo_close_path(cr);
+	cairo_fill(cr);
+}
+
+/* Whole-number tick step giving about six ticks. */
+static double tick_step(double span)
+{
+	double raw = span / 6, mag = pow(10, floor(log10(raw)));
+	double norm = raw / mag;
+	return (norm < 1.5 ? 1 : norm < 3.5 ? 2 : norm < 7.5 ? 5 : 10) * mag;
+}
+
+static void axes(cairo_t *cr, const struct frame *f)
+{
+	char buf[32];
+	double sx = tick_step(f->x1 - f->x0), sy = tick_step(f->y1 - f->y0);
+
+	cairo_set_line_width(cr, 0.6);
+	for (double y = ceil(f->y0 / sy) * sy; y <= f->y1 + 1e-9; y += sy) {
+		cairo_set_source_rgb(cr, GRID);
+		cairo_move_to(cr, f->x, py(f, y));
+		cairo_line_to(cr, f->x + f->w, py(f, y));
+		cairo_stroke(cr);
+		cairo_set_source_rgb(cr, INK);
+		snprintf(buf, sizeof buf, "%+.0f%%", y);
+		text(cr, f->x - 6, py(f, y) + 4, 10, 0, 1, buf);
+	}
+	for (double x = ceil(f->x0 / sx) * sx; x <= f->x1 + 1e-9; x += sx) {
+		cairo_set_source_rgb(cr, INK);
+		cairo_move_to(cr, px(f, x), f->y + f->h);
+		cairo_line_to(cr, px(f, x), f->y + f->h + 4);
+		cairo_stroke(cr);
+		snprintf(buf, sizeof buf, "%g", x);
+		text(cr, px(f, x), f->y + f->h + 16, 10, 0, 0.5, buf);
+	}
+	cairo_set_source_rgb(cr, INK);
+	cairo_rectangle(cr, f->x, f->y, f->w, f->h);
+	cairo_stroke(cr);
+	text(cr, f->x + f->w / 2, f->y + f->h + 32, 11, 0, 0.5, "weekly fractional sets");
+	cairo_save(cr);
+	cairo_translate(cr, f->x - 44, f->y + f->h / 2);
+	cairo_rotate(cr, -M_PI / 2);
+	text(cr, 0, 0, 11, 0, 0.5, "predicted 1RM change over the block");
+	cairo_restore(cr);
+}
+
+static void vline(cairo_t *cr, const struct frame *f, double x, const char *label)
+{
+	static const double dash[] = { 4, 3 };
+	cairo_set_source_rgb(cr, INK);
+	cairo_set_dash(cr, dash, 2, 0);
+	cairo_set_line_width(cr, 0.8);
+	cairo_move_to(cr, px(f, x), f->y);
+	cairo_line_to(cr, px(f, x), f->y + f->h);
+	cairo_stroke(cr);
+	cairo_set_dash(cr, NULL, 0, 0);
+	text(cr, px(f, x) + 3, f->y + 12, 9, 0, 0, label);
+}
+
+/* Draws the chart into the rectangle (x, y, w, h) of the surface. */
+static void draw_chart(cairo_t *cr, const struct sd_chart *c, double x, double y, double w,
+		       double h)
+{
+	struct frame f = { x + 64, y + 34, w - 84, h - 84, 0, 0, 0, 0 };
+	struct sd_point pt;
+	double lo = INFINITY, hi = -INFINITY, xmax = c->prof->dose_max;
+	double plateau = curve_plateau(c->prof, &c->cov, 1.0);
+	char buf[256];
+
+	if (c->audit)
+		for (int m = 0; m < SD_NMUSCLES; m++)
+			if (c->audit->row[m].dose.fractional > xmax)
+				xmax = c->audit->row[m].dose.fractional;
+	f.x1 = xmax;
+	for (int i = 0; i <= 60; i++) {
+		curve_eval(c->prof, &c->cov, xmax * i / 60, c->level, &pt);
+		lo = fmin(lo, curve_pct(pt.pi_lo));
+		hi = fmax(hi, curve_pct(pt.pi_hi));
+	}
+	f.y0 = floor(lo / 5) * 5;
+	f.y1 = ceil(hi / 5) * 5;
+
+	cairo_set_source_rgb(cr, INK);
+	text(cr, x + 16, y + 18, 14, 1, 0, c->title ? c->title : c->prof->name);
+	snprintf(buf, sizeof buf, "%s, %g-week block; profile %s; %.0f%% bands",
+		 c->cov.trained >= 0.5 ? "trained" : "untrained", c->cov.weeks, c->prof->name,
+		 c->level * 100);
+	text(cr, x + w - 16, y + 18, 10, 0, 1, buf);
+
+	cairo_set_source_rgb(cr, BAND_PI);
+	band(cr, &f, c, 1);
+	cairo_set_source_rgb(cr, BAND_CI);
+	band(cr, &f, c, 0);
+	axes(cr, &f);
+	snprintf(buf, sizeof buf, "plateau %g", plateau);
+	vline(cr, &f, plateau, buf);
+	if (xmax > c->prof->dose_max)
+		vline(cr, &f, c->prof->dose_max, "end of evidence");
+
+	cairo_set_source_rgb(cr, CURVE);
+	cairo_set_line_width(cr, 2.2);
+	for (int i = 0; i <= 200; i++) {
+		curve_eval(c->prof, &c->cov, xmax * i / 200, c->level, &pt);
+		if (i == 0)
+			cairo_move_to(cr, px(&f, pt.x), py(&f, curve_pct(pt.y)));
+		else
+			cairo_line_to(cr, px(&f, pt.x), py(&f, curve_pct(pt.y)));
+	}
+	cairo_stroke(cr);
+
+	if (c->audit) {
+		/* Marks in dose order; labels cycle through four heights (two above, two below the
+		 * curve) so muscles at nearby doses stay readable. */
+		int order[SD_NMUSCLES], n = 0;
+		for (int m = 0; m < SD_NMUSCLES; m++)
+			if (c->audit->row[m].dose.fractional > 0)
+				order[n++] = m;
+		for (int i = 1; i < n; i++)
+			for (int j = i; j > 0 && c->audit->row[order[j]].dose.fractional <
+						 c->audit->row[order[j - 1]].dose.fractional; j--) {
+				int t = order[j];
+				order[j] = order[j - 1];
+				order[j - 1] = t;
+			}
+		static const double lift[4] = { -10, 18, -22, 30 };
+		for (int k = 0; k < n; k++) {
+			const struct sd_audit_row *r = &c->audit->row[order[k]];
+			double mx = px(&f, r->dose.fractional), my = py(&f, curve_pct(r->pt.y));
+			double ly = my + lift[k % 4];
+			cairo_set_source_rgb(cr, MARK);
+			cairo_arc(cr, mx, my, 3.5, 0, 2 * M_PI);
+			cairo_fill(cr);
+			cairo_set_line_width(cr, 0.5);
+			cairo_move_to(cr, mx, my);
+			cairo_line_to(cr, mx, ly + (lift[k % 4] > 0 ? -9 : 2));
+			cairo_stroke(cr);
+			text(cr, mx, ly, 8.5, 0, 0.5, muscle_name(order[k]));
+		}
+	}
+	/* Legend */
+	double lx = f.x + f.w - 190, ly = f.y + f.h - 52;
+	cairo_set_source_rgb(cr, 1, 1, 1);
+	cairo_rectangle(cr, lx - 6, ly - 12, 190, 52);
+	cairo_fill(cr);
+	cairo_set_source_rgb(cr, CURVE);
+	cairo_rectangle(cr, lx, ly - 5, 16, 3);
+	cairo_fill(cr);
+	cairo_set_source_rgb(cr, BAND_CI);
+	cairo_rectangle(cr, lx, ly + 8, 16, 8);
+	cairo_fill(cr);
+	cairo_set_source_rgb(cr, BAND_PI);
+	cairo_rectangle(cr, lx, ly + 24, 16, 8);
+	cairo_fill(cr);
+	cairo_set_source_rgb(cr, INK);
+	text(cr, lx + 22, ly, 9, 0, 0, "mean (average athlete)");
+	snprintf(buf, sizeof buf, "%.0f%% confidence band", c->level * 100);
+	text(cr, lx + 22, ly + 16, 9, 0, 0, buf);
+	snprintf(buf, sizeof buf, "%.0f%% prediction band (one athlete)", c->level * 100);
+	text(cr, lx + 22, ly + 32, 9, 0, 0, buf);
+}
+
+static int finish(cairo_surface_t *s, cairo_t *cr, const char *path, enum fmt fmt,
+		  struct sd_err *e)
+{
+	cairo_status_t st = cairo_status(cr);
+	cairo_destroy(cr);
+	if (!st && fmt == FMT_PNG)
+		st = cairo_surface_write_to_png(s, path);
+	cairo_surface_finish(s);
+	if (!st)
+		st = cairo_surface_status(s);
+	cairo_surface_destroy(s);
+	/* Release cairo's and fontconfig's process-wide font caches, so leak checkers see a
+	 * clean exit (a chart is drawn once per process). */
+	cairo_debug_reset_static_data();
+	FcFini();
+	if (st)
+		return sd_fail(e, "cannot write '%s': %s", path, cairo_status_to_string(st));
+	return 0;
+}
+
+static cairo_surface_t *surface(enum fmt fmt, const char *path, double w, double h)
+{
+	switch (fmt) {
+	case FMT_PNG: return cairo_image_surface_create(CAIRO_FORMAT_RGB24, (int)w, (int)h);
+	case FMT_SVG: return cairo_svg_surface_create(path, w, h);
+	case FMT_PDF: return cairo_pdf_surface_create(path, w, h);
+	default: return NULL;
+	}
+}
+
+int chart_write(const char *path, const struct sd_chart *c, struct sd_err *e)
+{
+	enum fmt fmt = format_of(path);
+	double w = 900, h = 560;
+	cairo_surface_t *s;
+	cairo_t *cr;
+
+	if (fmt == FMT_NONE)
+		return sd_usage(e, "cannot tell the chart format of '%s': name it .png, .svg or .pdf", path);
+	s = surface(fmt, path, w, h);
+	if (!s || cairo_surface_status(s)) {
+		cairo_status_t st = s ? cairo_surface_status(s) : CAIRO_STATUS_NO_MEMORY;
+		if (s)
+			cairo_surface_destroy(s);
+		return sd_fail(e, "cannot write '%s': %s", path, cairo_status_to_string(st));
+	}
+	cr = cairo_create(s);
+	cairo_set_source_rgb(cr, 1, 1, 1);
+	cairo_paint(cr);
+	draw_chart(cr, c, 0, 0, w, h);
+	cairo_set_source_rgb(cr, INK);
+	text(cr, 16, h - 10, 8.5, 0, 0, aout_caution);
+	return finish(s, cr, path, fmt, e);
+}
+
+/* Wraps s at about `width` points on word boundaries; returns the y below the last line. */
+static double para(cairo_t *cr, double x, double y, double width, double size, const char *s)
+{
+	char line[512];
+	size_t len = 0;
+	cairo_text_extents_t ext;
+
+	cairo_select_font_face(cr, "sans-serif", CAIRO_FONT_SLANT_NORMAL, CAIRO_FONT_WEIGHT_NORMAL);
+	cairo_set_font_size(cr, size);
+	while (*s) {
+		size_t word = strcspn(s, " ");
+		if (len + word + 2 >= sizeof line)
+			word = sizeof line - len - 2;
+		char trial[512];
+		snprintf(trial, sizeof trial, "%.*s%s%.*s", (int)len, line, len ? " " : "", (int)word, s);
+		cairo_text_extents(cr, trial, &ext);
+		if (ext.x_advance > width && len) {
+			line[len] = '\0';
+			cairo_move_to(cr, x, y);
+			cairo_show_text(cr, line);
+			y += size * 1.3;
+			len = 0;
+			continue;
+		}
+		snprintf(line, sizeof line, "%s", trial);
+		len = strlen(line);
+		s += word;
+		while (*s == ' ')
+			s++;
+	}
+	if (len) {
+		line[len] = '\0';
+		cairo_move_to(cr, x, y);
+		cairo_show_text(cr, line);
+		y += size * 1.3;
+	}
+	return y;
+}
+
+static void report_page(cairo_t *cr, const struct sd_audit_info *in, double w)
+{
+	static const char *const heads[] = { "muscle", "direct", "indirect", "frac.", "max/day",
+					      "gain %", "CI", "PI", "+1 set", "zone" };
+	/* Left edge of the name and zone columns, right edge of the numeric ones. */
+	static const double col[] = { 40, 150, 192, 240, 284, 322, 392, 452, 494, 504 };
+	const struct sd_audit *a = in->audit;
+	char buf[256];
+	double y = 50;
+
+	cairo_set_source_rgb(cr, INK);
+	text(cr, 40, y, 16, 1, 0, in->prog->name);
+	y += 16;
+	snprintf(buf, sizeof buf, "%s%s%s; %d days, %d hard sets a week; %s, %g-week block; profile %s",
+		 in->athlete ? in->athlete : "", in->athlete ? " - " : "", in->label, in->prog->ndays,
+		 a->vol.hard_sets, a->cov.trained >= 0.5 ? "trained" : "untrained", a->cov.weeks,
+		 in->prof->name);
+	y = para(cr, 40, y, w - 80, 9, buf) + 8;
+	for (int i = 0; i < 10; i++)
+		text(cr, col[i], y, 8.5, 1, i == 0 || i == 9 ? 0 : 1, heads[i]);
+	y += 4;
+	cairo_set_line_width(cr, 0.5);
+	cairo_move_to(cr, 40, y);
+	cairo_line_to(cr, w - 40, y);
+	cairo_stroke(cr);
+	y += 11;
+	for (int m = 0; m < SD_NMUSCLES; m++) {
+		const struct sd_audit_row *r = &a->row[m];
+		char cells[10][48];
+		snprintf(cells[0], 48, "%s", muscle_name(m));
+		snprintf(cells[1], 48, "%g", r->dose.direct);
+		snprintf(cells[2], 48, "%g", r->dose.indirect);
+		snprintf(cells[3], 48, "%.1f", r->dose.fractional);
+		snprintf(cells[4], 48, "%.1f", r->dose.max_session);
+		snprintf(cells[5], 48, "%.1f", curve_pct(r->pt.y));
+		snprintf(cells[6], 48, "%.1f to %.1f", curve_pct(r->pt.ci_lo), curve_pct(r->pt.ci_hi));
+		snprintf(cells[7], 48, "%.1f to %.1f", curve_pct(r->pt.pi_lo), curve_pct(r->pt.pi_hi));
+		snprintf(cells[8], 48, "%.2f", r->marg.pct);
+		snprintf(cells[9], 48, "%s", zone_name(r->zone));
+		for (int i = 0; i < 10; i++)
+			text(cr, col[i], y, 8.5, 0, i == 0 || i == 9 ? 0 : 1, cells[i]);
+		y += 12;
+	}
+	y += 6;
+	struct sd_chart c = { in->prof, a->cov, a->level, a, "The curve and this program's muscles" };
+	cairo_save(cr);
+	cairo_translate(cr, 20, y);
+	cairo_scale(cr, (w - 40) / 900.0, (w - 40) / 900.0);
+	draw_chart(cr, &c, 0, 0, 900, 520);
+	cairo_restore(cr);
+	y += 520 * (w - 40) / 900.0 + 10;
+	cairo_set_source_rgb(cr, INK);
+	for (int i = 0; i < a->nwarn && y < 780; i++)
+		y = para(cr, 40, y, w - 80, 8.5, a->warn[i].text);
+	para(cr, 40, 800, w - 80, 8, aout_caution);
+}
+
+int report_write(const char *path, const struct sd_audit_info *in, int n, struct sd_err *e)
+{
+	double w = 595.276, h = 841.89;  /* A4 in points */
+	cairo_surface_t *s;
+	cairo_t *cr;
+
+	if (format_of(path) != FMT_PDF)
+		return sd_usage(e, "the report is a PDF: name it .pdf, not '%s'", path);
+	s = cairo_pdf_surface_create(path, w, h);
+	if (cairo_surface_status(s)) {
+		cairo_status_t st = cairo_surface_status(s);
+		cairo_surface_destroy(s);
+		return sd_fail(e, "cannot write '%s': %s", path, cairo_status_to_string(st));
+	}
+	cr = cairo_create(s);
+	for (int i = 0; i < n; i++) {
+		cairo_set_source_rgb(cr, 1, 1, 1);
+		cairo_paint(cr);
+		report_page(cr, &in[i], w);
+		cairo_show_page(cr);
+	}
+	return finish(s, cr, path, FMT_PDF, e);
+}
