@@ -1,0 +1,151 @@
+/* compare: programs side by side per muscle for one athlete, with the difference between them,
+ * its interval, the probability it exceeds the SWC and a verdict; totals per program. */
+#include <getopt.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "../core/compare.h"
+#include "../io/compare_out.h"
+#include "dbutil.h"
+#include "progarg.h"
+#include "cmd.h"
+
+extern const struct sd_cmd cmd_compare;
+
+#define MAX_PROGRAMS 26   /* keyed A to Z */
+
+/* Programs that state different block lengths are all compared at one length (the option,
+ * else the first program's): the difference between them is then the dose's alone. */
+static const char *weeks_note(const struct sd_ctx *ctx, const struct sd_program *p, int n,
+			      double weeks, char *buf, size_t size)
+{
+	int differ = 0;
+	if (ctx->opt.weeks_set)
+		return NULL;
+	for (int i = 1; i < n; i++)
+		differ |= p[i].weeks != p[0].weeks;
+	if (!differ)
+		return NULL;
+	snprintf(buf, size, "the programs state different block lengths; all are compared at %g "
+		 "weeks (the first's; set --weeks to choose)", weeks);
+	return buf;
+}
+
+/* One line, without getopt's own message: the option as typed and where the usage is. */
+static int bad_option(int argc, char **argv, struct sd_err *e)
+{
+	const char *bad = optind > 0 && optind <= argc ? argv[optind - 1] : "?";
+	if (optopt && !strncmp(bad, "--", 2) && !strchr(bad, '='))
+		return sd_usage(e, "option '%s' needs a value (see 'setdose help %s')", bad, "compare");
+	return sd_usage(e, "unknown option '%s' (see 'setdose help compare')", bad);
+}
+
+static int exec_compare(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	static const struct option longopts[] = {
+		{ "against-first", no_argument, NULL, 'a' },
+		{ "session-cap", required_argument, NULL, 'c' },
+		{ NULL, 0, NULL, 0 },
+	};
+	struct progarg pa = { NULL };
+	struct sd_program *prog = NULL;
+	struct sd_audit *au = NULL;
+	struct cmp_totals *tot = NULL;
+	struct cmp_diff *diff = NULL;
+	int (*pairs)[2] = NULL;
+	int c, n, against_first = 0, loaded = 0, audited = 0, npairs, rc = -1;
+	double cap = SD_SESSION_CAP;
+	char note[200];
+
+	optind = 0;
+	opterr = 0;
+	while ((c = getopt_long(argc, argv, "+", longopts, NULL)) != -1) {
+		if (c == 'a')
+			against_first = 1;
+		else if (c == 'c') {
+			if (dbu_num("--session-cap", optarg, 0.5, 100, &cap, e))
+				return -1;
+		} else
+			return bad_option(argc, argv, e);
+	}
+	n = argc - optind;
+	if (n < 2)
+		return sd_usage(e, "compare needs at least two programs, got %d (see 'setdose help "
+				"compare')", n);
+	if (n > MAX_PROGRAMS)
+		return sd_usage(e, "compare takes at most %d programs, got %d", MAX_PROGRAMS, n);
+	prog = calloc((size_t)n, sizeof *prog);
+	au = calloc((size_t)n, sizeof *au);
+	tot = calloc((size_t)n, sizeof *tot);
+	pairs = calloc((size_t)(n * (n - 1) / 2), sizeof *pairs);
+	diff = calloc((size_t)(n * (n - 1) / 2) * SD_NMUSCLES, sizeof *diff);
+	if (!prog || !au || !tot || !pairs || !diff) {
+		sd_fail(e, "out of memory");
+		goto done;
+	}
+	for (; loaded < n; loaded++)
+		if (progarg_load(ctx, &pa, argv[optind + loaded], &prog[loaded], e))
+			goto done;
+
+	/* One athlete context for every program, so heterogeneity and moderators cancel. */
+	struct sd_covars cov = cmd_covars(ctx, prog[0].weeks);
+	struct sd_audit_opts ao = { ctx->opt.level, ctx->opt.max_rir, cap };
+	for (; audited < n; audited++) {
+		if (audit_run(&prog[audited], &ctx->lib, &ctx->profile, &cov, &ao, &au[audited], e))
+			goto done;
+		cmp_totals(&au[audited], cap, &tot[audited]);
+	}
+	npairs = cmp_pairs(n, against_first, pairs);
+	for (int k = 0; k < npairs; k++)
+		for (int m = 0; m < SD_NMUSCLES; m++)
+			cmp_muscle(&ctx->profile, &cov, ctx->opt.level,
+				   au[pairs[k][0]].row[m].dose.fractional,
+				   au[pairs[k][1]].row[m].dose.fractional, &diff[k * SD_NMUSCLES + m]);
+
+	struct cmp_view v = { n, (const char *const *)(argv + optind), prog, au, tot, npairs,
+			      (const int (*)[2])pairs, diff, &ctx->profile, ctx->opt.level, cap,
+			      weeks_note(ctx, prog, n, cov.weeks, note, sizeof note) };
+	if (ctx->opt.format == SD_FMT_JSON)
+		rc = cmp_out_json(ctx->out, &v);
+	else if (ctx->opt.format == SD_FMT_CSV)
+		rc = cmp_out_csv(ctx->out, &v);
+	else {
+		cmp_out_table(ctx->out, &v, ctx->opt.color);
+		cmd_print_caution(ctx);
+		rc = 0;
+	}
+	if (rc)
+		sd_fail(e, "out of memory");
+done:
+	for (int i = 0; au && i < audited; i++)
+		audit_free(&au[i]);
+	for (int i = 0; prog && i < loaded; i++)
+		prog_free(&prog[i]);
+	free(prog);
+	free(au);
+	free(tot);
+	free(pairs);
+	free(diff);
+	progarg_close(&pa);
+	return rc;
+}
+
+const struct sd_cmd cmd_compare = {
+	.name = "compare",
+	.summary = "programs side by side per muscle: sets, gain, and whether the difference matters",
+	.usage = "compare [--against-first] [--session-cap N] PROGRAM PROGRAM [PROGRAM...]\n"
+		 "  PROGRAM          a program file, or the name of a stored template\n"
+		 "  --against-first  compare each program with the first only (default: every pair)\n"
+		 "  --session-cap N  warn when a muscle gets more than N fractional sets in one session\n"
+		 "                   (default 10; common practice, no source)\n"
+		 "Per muscle: each program's weekly fractional sets and predicted gain; per pair the\n"
+		 "difference (second minus first, percent as a ratio of gains) with its interval, the\n"
+		 "probability it exceeds the SWC (normal, or t with the profile's df) and a verdict:\n"
+		 "worthwhile (beyond the SWC, interval excludes 0), real but trivial (interval excludes\n"
+		 "0, within the SWC), unsure (beyond the SWC, interval includes 0) or no clear\n"
+		 "difference. All programs are taken for the same athlete and block length, so the\n"
+		 "between-athlete heterogeneity cancels in a difference: its interval uses only the\n"
+		 "profile's coefficient covariance, d = b_dose (f(x2) - f(x1)).",
+	.flags = CMD_PROFILE | CMD_LIBRARY,
+	.exec = exec_compare,
+};

@@ -1,0 +1,117 @@
+#include "program_write.h"
+
+#include <errno.h>
+#include <fcntl.h>
+#include <stdlib.h>
+#include <string.h>
+#include <strings.h>
+#include <sys/stat.h>
+#include <unistd.h>
+
+/* A value the line reader would cut or mis-split: it strips ';' and '#' comments, splits at
+ * the first '=', trims blanks and ends a section name at ']'. */
+static int unsafe(const char *s, int section)
+{
+	size_t n = strlen(s);
+	if (!n || s[0] == ' ' || s[0] == '\t' || s[n - 1] == ' ' || s[n - 1] == '\t')
+		return 1;
+	for (; *s; s++)
+		if (*s == '\n' || *s == '\r' || (section ? *s == ']' : *s == '=' || *s == ';' || *s == '#'))
+			return 1;
+	return 0;
+}
+
+static void set_text(const struct sd_entry *en, char *buf, size_t n)
+{
+	int len = snprintf(buf, n, "%d", en->sets);
+	if (en->reps > 0 && len > 0 && (size_t)len < n)
+		len += snprintf(buf + len, n - (size_t)len, "x%d", en->reps);
+	if (en->rir >= 0 && len > 0 && (size_t)len < n)
+		snprintf(buf + len, n - (size_t)len, " @%d", en->rir);
+}
+
+int pwrite_ini(FILE *f, const struct sd_program *p, const struct sd_library *lib,
+	       const char *comment, struct sd_err *e)
+{
+	if (comment)
+		for (const char *s = comment; *s;) {
+			size_t n = strcspn(s, "\n");
+			fprintf(f, "; %.*s\n", (int)n, s);
+			s += n + (s[n] == '\n');
+		}
+	if (p->name[0] && !unsafe(p->name, 0) && !strchr(p->name, ']'))
+		fprintf(f, "[program]\nname  = %s\n", p->name);
+	else
+		fprintf(f, "[program]\n");
+	if (p->weeks > 0)
+		fprintf(f, "weeks = %d\n", p->weeks);
+	for (int d = 0; d < p->ndays; d++) {
+		if (unsafe(p->days[d].name, 1) || !strcasecmp(p->days[d].name, "program"))
+			return sd_fail(e, "day name '%s' cannot be written to a program file",
+				       p->days[d].name);
+		fprintf(f, "\n[%s]\n", p->days[d].name);
+		for (int i = 0; i < p->nentries; i++) {
+			const struct sd_entry *en = &p->entries[i];
+			char sets[48];
+			if (en->day != d)
+				continue;
+			if (unsafe(lib->ex[en->ex].name, 0))
+				return sd_fail(e, "exercise name '%s' cannot be written to a program file",
+					       lib->ex[en->ex].name);
+			set_text(en, sets, sizeof sets);
+			fprintf(f, "%s = %s\n", lib->ex[en->ex].name, sets);
+		}
+	}
+	return 0;
+}
+
+int pwrite_file(const char *path, const struct sd_program *p, const struct sd_library *lib,
+		const char *comment, int overwrite, struct sd_err *e)
+{
+	size_t n = strlen(path) + 16;
+	char *tmp = malloc(n);
+	FILE *f = NULL;
+	int fd = -1, rc = -1;
+
+	if (!tmp)
+		return sd_fail(e, "out of memory");
+	if (!overwrite && access(path, F_OK) == 0) {
+		sd_usage(e, "'%s' exists; choose another file or add --force", path);
+		goto done;
+	}
+	snprintf(tmp, n, "%s.XXXXXX", path);
+	if ((fd = mkstemp(tmp)) < 0) {
+		sd_fail(e, "cannot write '%s': %s", path, strerror(errno));
+		goto done;
+	}
+	if (!(f = fdopen(fd, "w"))) {
+		sd_fail(e, "cannot write '%s': %s", path, strerror(errno));
+		close(fd);
+		unlink(tmp);
+		goto done;
+	}
+	if (pwrite_ini(f, p, lib, comment, e)) {
+		fclose(f);
+		unlink(tmp);
+		goto done;
+	}
+	/* The program is a plain user file: the permissions of a new file under the umask, not
+	 * mkstemp's 0600. */
+	mode_t um = umask(0);
+	umask(um);
+	fchmod(fd, 0666 & ~um);
+	if (fflush(f) || ferror(f) || fclose(f)) {
+		sd_fail(e, "cannot write '%s': %s", path, strerror(errno));
+		unlink(tmp);
+		goto done;
+	}
+	if (rename(tmp, path)) {
+		sd_fail(e, "cannot write '%s': %s", path, strerror(errno));
+		unlink(tmp);
+		goto done;
+	}
+	rc = 0;
+done:
+	free(tmp);
+	return rc;
+}
