@@ -7,6 +7,7 @@ extern const struct sd_cmd cmd_audit, cmd_curve, cmd_returns, cmd_exercises, cmd
 	cmd_chart, cmd_report, cmd_help;
 extern const struct sd_cmd cmd_athlete, cmd_program, cmd_block, cmd_test, cmd_e1rm, cmd_response,
 	cmd_db;
+extern const struct sd_cmd cmd_effects, cmd_fit, cmd_slopes;
 extern const struct sd_cmd cmd_compare, cmd_allot;
 
 const struct sd_cmd *const sd_commands[] = {
@@ -26,6 +27,9 @@ const struct sd_cmd *const sd_commands[] = {
 	&cmd_e1rm,
 	&cmd_response,
 	&cmd_db,
+	&cmd_effects,
+	&cmd_fit,
+	&cmd_slopes,
 	&cmd_help,
 	NULL,
 };

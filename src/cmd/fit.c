@@ -1,0 +1,528 @@
+/* fit: multilevel meta-regression of an effect-size table; the dose-form comparison; writing
+ * the fit as a dose-response profile. */
+#include <errno.h>
+#include <getopt.h>
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+#include <unistd.h>
+
+#include <cjson/cJSON.h>
+
+#include "../io/profile_io.h"
+#include "../io/table.h"
+#include "mrmodel.h"
+
+extern const struct sd_cmd cmd_fit;
+
+static const char *pval(double p, char *buf, size_t n)
+{
+	if (p < 0.001)
+		return "<0.001";
+	snprintf(buf, n, "%.3f", p);
+	return buf;
+}
+
+static const char *basename_of(const char *path)
+{
+	const char *s = strrchr(path, '/');
+	return s ? s + 1 : path;
+}
+
+/* ---- one fit: table, CSV and JSON ---- */
+
+static void print_coefs(FILE *out, const struct ef_model *mod, const struct mr_fit *f, int csv)
+{
+	const char *heads[] = { "<term", "estimate", "se", f->df ? "t" : "z", "p", "ci_low",
+				"ci_high" };
+	struct sd_table *t = tbl_new(7, heads);
+	char b[16];
+
+	if (!t)
+		return;
+	for (int j = 0; j < f->p; j++) {
+		tbl_row(t);
+		tbl_set(t, 0, "%s", mod->names[j]);
+		tbl_set(t, 1, csv ? "%.10g" : "%.6g", f->beta[j]);
+		tbl_set(t, 2, csv ? "%.10g" : "%.4g", f->se[j]);
+		tbl_set(t, 3, "%.2f", f->stat[j]);
+		if (csv)
+			tbl_set(t, 4, "%.4g", f->pval[j]);
+		else
+			tbl_set(t, 4, "%s", pval(f->pval[j], b, sizeof b));
+		tbl_set(t, 5, csv ? "%.10g" : "%.6g", f->lo[j]);
+		tbl_set(t, 6, csv ? "%.10g" : "%.6g", f->hi[j]);
+	}
+	tbl_print(t, out, csv);
+	tbl_free(t);
+}
+
+static void print_variances(FILE *out, const struct mrm *m, const struct mr_fit *f)
+{
+	const char *study = m->spec.study ? m->spec.study : "study";
+	const char *zero = "  (0 at the boundary: no detectable variance)";
+
+	fprintf(out, "\nvariance components\n");
+	fprintf(out, "  tau2        %-12.6g sd %-10.4g study intercepts (%s)%s\n", f->tau2,
+		sqrt(f->tau2), study, f->tau2_zero ? zero : "");
+	if (f->slopes) {
+		fprintf(out, "  tau2_slope  %-12.6g sd %-10.4g study dose slopes (%s)%s\n",
+			f->tau2_slope, sqrt(f->tau2_slope), study, f->slope_zero ? zero : "");
+		fprintf(out, "  cov_slope   %-12.6g", f->cov_slope);
+		if (isnan(f->rho))
+			fprintf(out, "    correlation undefined (a variance is 0)\n");
+		else
+			fprintf(out, "    correlation rho %.4f%s\n", f->rho,
+				f->rho_bound ? "  (at the boundary +-1: G has rank 1)" : "");
+	}
+	if (f->effect_level)
+		fprintf(out, "  sigma2      %-12.6g sd %-10.4g effects within studies (%s)%s\n",
+			f->sigma2, sqrt(f->sigma2), m->spec.effect, f->sigma2_zero ? zero : "");
+}
+
+static void print_stats(FILE *out, const struct mr_fit *f)
+{
+	char b[16];
+	fprintf(out, "\nfit statistics\n  logLik (%s) %.6f   AIC %.4f   BIC %.4f   parameters %d "
+		"(%d fixed, %d variance)\n", f->method == MR_REML ? "REML" : "ML", f->loglik, f->aic,
+		f->bic, f->npar, f->p, f->nvc);
+	fprintf(out, "  %d effects in %d studies; %s intervals at %.0f%%", f->n, f->nstudy,
+		f->df ? "t" : "normal (z)", f->level * 100);
+	if (f->df)
+		fprintf(out, "; t with df = %d (studies - coefficients)", f->df);
+	fprintf(out, "\n\nheterogeneity\n  Q_E(%d) = %.2f, p %s%s: residual heterogeneity test "
+		"(Cochran)\n", f->qe_df, f->qe, f->qe_p < 0.001 ? "< " : "= ",
+		f->qe_p < 0.001 ? "0.001" : pval(f->qe_p, b, sizeof b));
+	fprintf(out, "  I2 between studies %.1f%%%s", f->i2_study,
+		f->slopes ? " (at the mean dose term)" : "");
+	if (f->effect_level)
+		fprintf(out, ", within studies %.1f%%", f->i2_effect);
+	fprintf(out, "; typical sampling variance %.4g\n", f->v_typical);
+	fprintf(out, "\nconvergence: %s after %d quasi-Newton (GSL BFGS2) and %d Newton "
+		"iterations; final Newton decrement %.2g", f->converged ? "converged" :
+		"NOT converged", f->iter_bfgs, f->iter_newton, f->decrement);
+	if (f->starts)
+		fprintf(out, "; best of %d starts", f->starts + 1);
+	fputc('\n', out);
+}
+
+static void csv_row(struct sd_table *t, const char *name, double est, double se, double st,
+		    double p, double lo, double hi)
+{
+	double v[6] = { est, se, st, p, lo, hi };
+	tbl_row(t);
+	tbl_set(t, 0, "%s", name);
+	for (int i = 0; i < 6; i++)
+		if (!isnan(v[i]))
+			tbl_set(t, i + 1, "%.10g", v[i]);
+}
+
+static void print_csv(FILE *out, const struct ef_model *mod, const struct mr_fit *f)
+{
+	static const char *const heads[] = { "<quantity", "estimate", "se", "stat", "p", "ci_low",
+					     "ci_high" };
+	struct sd_table *t = tbl_new(7, heads);
+	if (!t)
+		return;
+	for (int j = 0; j < f->p; j++)
+		csv_row(t, mod->names[j], f->beta[j], f->se[j], f->stat[j], f->pval[j], f->lo[j],
+			f->hi[j]);
+	csv_row(t, "tau2", f->tau2, NAN, NAN, NAN, NAN, NAN);
+	if (f->slopes) {
+		csv_row(t, "tau2_slope", f->tau2_slope, NAN, NAN, NAN, NAN, NAN);
+		csv_row(t, "cov_slope", f->cov_slope, NAN, NAN, NAN, NAN, NAN);
+		csv_row(t, "rho", f->rho, NAN, NAN, NAN, NAN, NAN);
+	}
+	if (f->effect_level)
+		csv_row(t, "sigma2", f->sigma2, NAN, NAN, NAN, NAN, NAN);
+	csv_row(t, "loglik", f->loglik, NAN, NAN, NAN, NAN, NAN);
+	csv_row(t, "aic", f->aic, NAN, NAN, NAN, NAN, NAN);
+	csv_row(t, "bic", f->bic, NAN, NAN, NAN, NAN, NAN);
+	csv_row(t, "qe", f->qe, NAN, f->qe_df, f->qe_p, NAN, NAN);
+	csv_row(t, "effects", f->n, NAN, NAN, NAN, NAN, NAN);
+	csv_row(t, "studies", f->nstudy, NAN, NAN, NAN, NAN, NAN);
+	csv_row(t, "converged", f->converged, NAN, NAN, NAN, NAN, NAN);
+	tbl_print(t, out, 1);
+	tbl_free(t);
+}
+
+static cJSON *num(double x)
+{
+	return isfinite(x) ? cJSON_CreateNumber(x) : cJSON_CreateNull();
+}
+
+static void print_json(FILE *out, const char *path, const struct mrm *m,
+		       const struct ef_model *mod, const struct mr_fit *f)
+{
+	cJSON *root = cJSON_CreateObject(), *co = cJSON_CreateArray(), *vc = cJSON_CreateObject();
+	if (!root || !co || !vc)
+		goto done;
+	cJSON_AddStringToObject(root, "input", path);
+	cJSON_AddStringToObject(root, "method", f->method == MR_REML ? "REML" : "ML");
+	cJSON_AddStringToObject(root, "form", form_name(m->spec.form));
+	cJSON_AddItemToObject(root, "effects", num(f->n));
+	cJSON_AddItemToObject(root, "studies", num(f->nstudy));
+	for (int j = 0; j < f->p; j++) {
+		cJSON *o = cJSON_CreateObject();
+		cJSON_AddStringToObject(o, "term", mod->names[j]);
+		cJSON_AddItemToObject(o, "estimate", num(f->beta[j]));
+		cJSON_AddItemToObject(o, "se", num(f->se[j]));
+		cJSON_AddItemToObject(o, "stat", num(f->stat[j]));
+		cJSON_AddItemToObject(o, "p", num(f->pval[j]));
+		cJSON_AddItemToObject(o, "ci_low", num(f->lo[j]));
+		cJSON_AddItemToObject(o, "ci_high", num(f->hi[j]));
+		cJSON_AddItemToArray(co, o);
+	}
+	cJSON_AddItemToObject(root, "coefficients", co);
+	co = NULL;
+	cJSON_AddItemToObject(vc, "tau2", num(f->tau2));
+	if (f->slopes) {
+		cJSON_AddItemToObject(vc, "tau2_slope", num(f->tau2_slope));
+		cJSON_AddItemToObject(vc, "cov_slope", num(f->cov_slope));
+		cJSON_AddItemToObject(vc, "rho", num(f->rho));
+	}
+	if (f->effect_level)
+		cJSON_AddItemToObject(vc, "sigma2", num(f->sigma2));
+	cJSON_AddItemToObject(root, "variance", vc);
+	vc = NULL;
+	cJSON_AddItemToObject(root, "loglik", num(f->loglik));
+	cJSON_AddItemToObject(root, "aic", num(f->aic));
+	cJSON_AddItemToObject(root, "bic", num(f->bic));
+	cJSON_AddItemToObject(root, "df", num(f->df));
+	cJSON_AddItemToObject(root, "qe", num(f->qe));
+	cJSON_AddItemToObject(root, "qe_p", num(f->qe_p));
+	cJSON_AddItemToObject(root, "i2_study", num(f->i2_study));
+	cJSON_AddItemToObject(root, "i2_effect", num(f->i2_effect));
+	cJSON_AddBoolToObject(root, "converged", f->converged);
+	char *s = cJSON_Print(root);
+	if (s)
+		fprintf(out, "%s\n", s);
+	free(s);
+done:
+	cJSON_Delete(root);
+	cJSON_Delete(co);
+	cJSON_Delete(vc);
+}
+
+static void print_fit(struct sd_ctx *ctx, const char *path, const struct mrm *m,
+		      const struct ef_model *mod, const struct mr_fit *f)
+{
+	char desc[768];
+	FILE *out = ctx->out;
+
+	if (ctx->opt.format == SD_FMT_CSV) {
+		print_csv(out, mod, f);
+		return;
+	}
+	if (ctx->opt.format == SD_FMT_JSON) {
+		print_json(out, path, m, mod, f);
+		return;
+	}
+	mrm_describe(m, desc, sizeof desc);
+	fprintf(out, "fit of '%s': %d effects in %d studies, doses %g to %g weekly sets\nmodel: "
+		"%s\n\n", path, f->n, f->nstudy, mod->dose_min, mod->dose_max, desc);
+	print_coefs(out, mod, f, 0);
+	print_variances(out, m, f);
+	print_stats(out, f);
+}
+
+/* ---- the dose-form comparison ---- */
+
+struct progress {
+	int on;
+	const char *form;
+};
+
+static void show_progress(void *arg, int done, int total)
+{
+	struct progress *p = arg;
+	if (!p->on)
+		return;
+	if (done < total)
+		fprintf(stderr, "\rleave-one-study-out, %s form: study %d of %d ", p->form, done + 1,
+			total);
+	else
+		fprintf(stderr, "\r%60s\r", "");
+	fflush(stderr);
+}
+
+struct form_row {
+	enum sd_form form;
+	struct mr_fit fit;
+	struct mr_cv cv;
+	int rank[4];         /* by AIC, BIC, RMSE, MLPD */
+};
+
+static void rank_rows(struct form_row *r, int n)
+{
+	for (int i = 0; i < n; i++)
+		for (int c = 0; c < 4; c++) {
+			int k = 1;
+			for (int j = 0; j < n; j++) {
+				double a, b;
+				switch (c) {
+				case 0: a = r[j].fit.aic; b = r[i].fit.aic; break;
+				case 1: a = r[j].fit.bic; b = r[i].fit.bic; break;
+				case 2: a = r[j].cv.rmse; b = r[i].cv.rmse; break;
+				default: a = -r[j].cv.mlpd; b = -r[i].cv.mlpd; break;
+				}
+				k += a < b;
+			}
+			r[i].rank[c] = k;
+		}
+}
+
+static void print_forms(struct sd_ctx *ctx, const char *path, const struct mrm *m,
+			struct form_row *r, int n)
+{
+	static const char *const heads[] = { "<form", "logLik", "AIC", "dAIC", "BIC", "dBIC",
+					     "loso_rmse", "loso_mlpd", "rank_aic", "rank_bic",
+					     "rank_rmse", "rank_mlpd" };
+	struct sd_table *t = tbl_new(12, heads);
+	double amin = INFINITY, bmin = INFINITY;
+	int csv = ctx->opt.format == SD_FMT_CSV, order[SD_NFORMS];
+	char desc[768];
+
+	if (!t)
+		return;
+	for (int i = 0; i < n; i++) {
+		amin = fmin(amin, r[i].fit.aic);
+		bmin = fmin(bmin, r[i].fit.bic);
+		order[r[i].rank[0] - 1] = i;   /* rows by AIC */
+	}
+	if (ctx->opt.format == SD_FMT_JSON) {
+		cJSON *arr = cJSON_CreateArray();
+		for (int k = 0; arr && k < n; k++) {
+			const struct form_row *x = &r[order[k]];
+			cJSON *o = cJSON_CreateObject();
+			cJSON_AddStringToObject(o, "form", form_name(x->form));
+			cJSON_AddItemToObject(o, "loglik", num(x->fit.loglik));
+			cJSON_AddItemToObject(o, "aic", num(x->fit.aic));
+			cJSON_AddItemToObject(o, "bic", num(x->fit.bic));
+			cJSON_AddItemToObject(o, "loso_rmse", num(x->cv.rmse));
+			cJSON_AddItemToObject(o, "loso_mlpd", num(x->cv.mlpd));
+			cJSON_AddItemToObject(o, "loso_folds", num(x->cv.folds));
+			cJSON_AddItemToObject(o, "loso_skipped", num(x->cv.skipped));
+			cJSON_AddItemToObject(o, "rank_aic", num(x->rank[0]));
+			cJSON_AddItemToObject(o, "rank_bic", num(x->rank[1]));
+			cJSON_AddItemToObject(o, "rank_rmse", num(x->rank[2]));
+			cJSON_AddItemToObject(o, "rank_mlpd", num(x->rank[3]));
+			cJSON_AddItemToArray(arr, o);
+		}
+		char *s = cJSON_Print(arr);
+		if (s)
+			fprintf(ctx->out, "%s\n", s);
+		free(s);
+		cJSON_Delete(arr);
+		tbl_free(t);
+		return;
+	}
+	for (int k = 0; k < n; k++) {
+		const struct form_row *x = &r[order[k]];
+		const char *g = csv ? "%.10g" : "%.3f";
+		tbl_row(t);
+		tbl_set(t, 0, "%s", form_name(x->form));
+		tbl_set(t, 1, g, x->fit.loglik);
+		tbl_set(t, 2, g, x->fit.aic);
+		tbl_set(t, 3, g, x->fit.aic - amin);
+		tbl_set(t, 4, g, x->fit.bic);
+		tbl_set(t, 5, g, x->fit.bic - bmin);
+		tbl_set(t, 6, csv ? "%.10g" : "%.5f", x->cv.rmse);
+		tbl_set(t, 7, csv ? "%.10g" : "%.4f", x->cv.mlpd);
+		for (int c = 0; c < 4; c++)
+			tbl_set(t, 8 + c, "%d", x->rank[c]);
+	}
+	if (!csv) {
+		mrm_describe(m, desc, sizeof desc);
+		fprintf(ctx->out, "dose forms compared on '%s' (%d effects, %d studies)\nmodel: %s; "
+			"every form fitted by ML\n\n", path, r[0].fit.n, r[0].fit.nstudy, desc);
+	}
+	tbl_print(t, ctx->out, csv);
+	if (!csv) {
+		fprintf(ctx->out, "\nlower AIC, BIC and RMSE and higher MLPD are better. loso: each "
+			"study's effects predicted by the ML refit without it (RMSE of the effects; "
+			"mean log predictive density per effect, joint within a study).\n");
+		for (int i = 0; i < n; i++)
+			if (r[i].cv.skipped)
+				fprintf(ctx->out, "note: %s form: %d studies could not be left out (the "
+					"rest could not carry the model)\n", form_name(r[i].form),
+					r[i].cv.skipped);
+	}
+	tbl_free(t);
+}
+
+static int compare_forms(struct sd_ctx *ctx, const char *path, struct mrm *m,
+			 struct ef_model *mod, struct sd_err *e)
+{
+	struct form_row r[SD_NFORMS];
+	struct progress pr = { isatty(STDERR_FILENO), NULL };
+	struct mr_opts o = mrm_fit_opts(m, ctx);
+	enum sd_form keep = m->spec.form;
+
+	o.method = MR_ML;
+	for (int f = 0; f < SD_NFORMS; f++) {
+		r[f].form = (enum sd_form)f;
+		ef_model_set_form(mod, r[f].form);
+		pr.form = form_name(r[f].form);
+		if (mr_fit(&mod->d, &o, &r[f].fit, e) ||
+		    mr_loso(&mod->d, &o, &r[f].fit, &r[f].cv, show_progress, &pr, e)) {
+			show_progress(&pr, 1, 1);
+			return sd_wrap(e, "%s form", form_name(r[f].form));
+		}
+	}
+	rank_rows(r, SD_NFORMS);
+	m->method = MR_ML;
+	m->spec.form = keep;
+	print_forms(ctx, path, m, r, SD_NFORMS);
+	return 0;
+}
+
+/* ---- writing a profile ---- */
+
+static void today(char *buf, size_t n)
+{
+	/* SOURCE_DATE_EPOCH makes written profiles reproducible (reproducible-builds.org). */
+	const char *sde = getenv("SOURCE_DATE_EPOCH");
+	time_t t = sde && *sde ? (time_t)strtoll(sde, NULL, 10) : time(NULL);
+	struct tm tm;
+	gmtime_r(&t, &tm);
+	strftime(buf, n, "%Y-%m-%d", &tm);
+}
+
+static int write_profile(struct sd_ctx *ctx, const char *path, const char *out,
+			 const char *name, const struct mrm *m, const struct ef_model *mod,
+			 const struct mr_fit *f, struct sd_err *e)
+{
+	struct sd_profile p;
+	char date[32], desc[768], tmp[1100];
+	FILE *fp;
+
+	if (mr_to_profile(f, m->spec.form, mod->names, &p, e))
+		return -1;
+	snprintf(p.name, sizeof p.name, "%s", name);
+	snprintf(p.outcome, sizeof p.outcome, "1RM strength");
+	p.dose_min = mod->dose_min;
+	p.dose_max = mod->dose_max;
+	if (ctx->opt.swc_set)
+		p.swc = log1p(ctx->opt.swc_pct / 100.0);
+	today(date, sizeof date);
+	mrm_describe(m, desc, sizeof desc);
+	snprintf(p.provenance, sizeof p.provenance,
+		 "Fitted by setdose fit from '%s' on %s: %d effects in %d studies, doses %g to %g "
+		 "weekly fractional sets.\nModel: multilevel meta-regression on lnRR, %s.\n"
+		 "logLik %.6f, AIC %.4f, BIC %.4f; tau2 %.6g, sigma2 %.6g%s; %s.\n"
+		 "Coefficients are raw (centre 0); intervals use %s quantiles.",
+		 basename_of(path), date, f->n, f->nstudy, mod->dose_min, mod->dose_max, desc,
+		 f->loglik, f->aic, f->bic, f->tau2, f->sigma2, f->slopes ? ", random slopes" : "",
+		 f->converged ? "converged" : "not converged", f->df ? "t" : "normal");
+	if (profile_validate(&p, e))
+		return sd_wrap(e, "the fitted profile is not usable");
+	/* Written beside the target and renamed, so a failed write leaves the old file intact. */
+	snprintf(tmp, sizeof tmp, "%s.tmp%ld", out, (long)getpid());
+	if (!(fp = fopen(tmp, "w")))
+		return sd_fail(e, "cannot write '%s': %s", out, strerror(errno));
+	if (profile_write(fp, &p, e) || fclose(fp)) {
+		remove(tmp);
+		return e->msg[0] ? -1 : sd_fail(e, "cannot write '%s': %s", out, strerror(errno));
+	}
+	if (rename(tmp, out)) {
+		int err = errno;
+		remove(tmp);
+		return sd_fail(e, "cannot write '%s': %s", out, strerror(err));
+	}
+	if (ctx->opt.format == SD_FMT_TABLE) {
+		fprintf(ctx->out, "\nwrote profile '%s' (%s form, %d terms); use it with --profile %s\n",
+			out, form_name(p.form), p.nterms, out);
+		for (int j = 2; j < f->p; j++)
+			if (strcmp(mod->names[j], "weeks") && strcmp(mod->names[j], "trained"))
+				fprintf(ctx->out, "note: moderator '%s' is not an athlete covariate (weeks, "
+					"trained); the curve holds it at 0\n", mod->names[j]);
+	}
+	return 0;
+}
+
+static int exec_fit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
+{
+	enum { O_FORMS = 400, O_WRITE, O_NAME };
+	static const struct option longopts[] = {
+		MRM_LONGOPTS,
+		{ "forms", required_argument, NULL, O_FORMS },
+		{ "write", required_argument, NULL, O_WRITE },
+		{ "name", required_argument, NULL, O_NAME },
+		{ NULL, 0, NULL, 0 },
+	};
+	struct mrm m;
+	struct ef_table t;
+	struct ef_model mod;
+	struct mr_fit f;
+	const char *write = NULL, *name = "fitted";
+	int c, forms = 0, rc = -1;
+
+	mrm_init(&m);
+	optind = 0;
+	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
+		int r = mrm_option(&m, c, optarg, e);
+		if (r < 0)
+			return -1;
+		if (r)
+			continue;
+		switch (c) {
+		case O_FORMS:
+			if (strcmp(optarg, "all"))
+				return sd_usage(e, "--forms wants 'all', not '%s'", optarg);
+			forms = 1;
+			break;
+		case O_WRITE:
+			write = optarg;
+			break;
+		case O_NAME:
+			if (!*optarg || strlen(optarg) >= sizeof ((struct sd_profile *)0)->name)
+				return sd_usage(e, "--name wants 1 to 63 characters");
+			name = optarg;
+			break;
+		default:
+			return sd_usage(e, "usage: setdose %s", cmd_fit.usage);
+		}
+	}
+	if (argc - optind != 1)
+		return sd_usage(e, "usage: setdose %s", cmd_fit.usage);
+	if (forms && write)
+		return sd_usage(e, "--write needs one dose form; drop --forms all");
+	if (mrm_load(&m, argv[optind], &t, &mod, e))
+		return -1;
+	if (forms) {
+		rc = compare_forms(ctx, argv[optind], &m, &mod, e);
+		goto done;
+	}
+	struct mr_opts o = mrm_fit_opts(&m, ctx);
+	if (mr_fit(&mod.d, &o, &f, e)) {
+		/* A fit that ran but did not converge is shown, then reported as a failure. */
+		if (f.nstudy && !f.converged && ctx->opt.format == SD_FMT_TABLE)
+			print_fit(ctx, argv[optind], &m, &mod, &f);
+		goto done;
+	}
+	print_fit(ctx, argv[optind], &m, &mod, &f);
+	if (write && write_profile(ctx, argv[optind], write, name, &m, &mod, &f, e))
+		goto done;
+	rc = 0;
+done:
+	ef_model_free(&mod);
+	eft_free(&t);
+	return rc;
+}
+
+const struct sd_cmd cmd_fit = {
+	.name = "fit",
+	.summary = "multilevel meta-regression of an effect-size table; compare dose forms",
+	.usage = "fit [options] EFFECTS.csv\n"
+		 MRM_USAGE "\n"
+		 "  --forms all        fit every dose form by ML; rank by AIC, BIC and\n"
+		 "                     leave-one-study-out prediction error\n"
+		 "  --write FILE       write the fit as a dose-response profile\n"
+		 "  --name NAME        the written profile's name (default fitted)\n"
+		 "  (global --swc PCT sets the written profile's SWC; default 3%)",
+	.flags = 0,
+	.exec = exec_fit,
+};
