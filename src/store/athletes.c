@@ -116,38 +116,24 @@ done:
 	return ret;
 }
 
+static int collect_athlete(sqlite3_stmt *st, void *rec, struct sd_err *e)
+{
+	(void)e;
+	row_athlete(st, rec);
+	return 0;
+}
+
 int db_athlete_list(struct sd_db *db, struct db_athlete **out, int *n, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	struct db_athlete *v = NULL;
-	int cap = 0, k = 0, ret = -1, rc;
+	int ret = -1;
 
 	if (dbi_prepare(db, "SELECT " ATHLETE_COLS " FROM athletes ORDER BY name COLLATE NOCASE",
 			&st, e))
 		goto done;
-	while ((rc = sqlite3_step(st)) == SQLITE_ROW) {
-		if (k == cap) {
-			struct db_athlete *nv;
-			cap = cap ? 2 * cap : 16;
-			nv = realloc(v, (size_t)cap * sizeof *v);
-			if (!nv) {
-				sd_fail(e, "out of memory");
-				goto done;
-			}
-			v = nv;
-		}
-		row_athlete(st, &v[k++]);
-	}
-	if (rc != SQLITE_DONE) {
-		dbi_fail(db, e, "read athletes");
-		goto done;
-	}
-	*out = v;
-	*n = k;
-	v = NULL;
-	ret = 0;
+	ret = dbi_collect(db, st, sizeof(struct db_athlete), collect_athlete, (void **)out, n,
+			  "read athletes", e);
 done:
-	free(v);
 	sqlite3_finalize(st);
 	return ret;
 }

@@ -91,40 +91,26 @@ done:
 	return ret;
 }
 
+static int collect_block(sqlite3_stmt *st, void *rec, struct sd_err *e)
+{
+	(void)e;
+	row_block(st, rec);
+	return 0;
+}
+
 int db_block_list(struct sd_db *db, long long athlete_id, struct db_block **out, int *n,
 		  struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	struct db_block *v = NULL;
-	int cap = 0, k = 0, ret = -1, rc;
+	int ret = -1;
 
 	if (dbi_prepare(db, BLOCK_SELECT "WHERE ?1 <= 0 OR b.athlete_id = ?1 "
 			    "ORDER BY a.name COLLATE NOCASE, b.start_date, b.id", &st, e))
 		goto done;
 	sqlite3_bind_int64(st, 1, athlete_id);
-	while ((rc = sqlite3_step(st)) == SQLITE_ROW) {
-		if (k == cap) {
-			struct db_block *nv;
-			cap = cap ? 2 * cap : 16;
-			nv = realloc(v, (size_t)cap * sizeof *v);
-			if (!nv) {
-				sd_fail(e, "out of memory");
-				goto done;
-			}
-			v = nv;
-		}
-		row_block(st, &v[k++]);
-	}
-	if (rc != SQLITE_DONE) {
-		dbi_fail(db, e, "read blocks");
-		goto done;
-	}
-	*out = v;
-	*n = k;
-	v = NULL;
-	ret = 0;
+	ret = dbi_collect(db, st, sizeof(struct db_block), collect_block, (void **)out, n,
+			  "read blocks", e);
 done:
-	free(v);
 	sqlite3_finalize(st);
 	return ret;
 }

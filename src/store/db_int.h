@@ -21,6 +21,12 @@ void dbi_text(sqlite3_stmt *st, int col, char *buf, size_t n);
 int dbi_exec_step(struct sd_db *db, sqlite3_stmt *st, const char *what, struct sd_err *e);
 /* Runs a one-row, one-integer query with one optional bound id (id < 0: none). */
 int dbi_count(struct sd_db *db, const char *sql, long long id, long long *out, struct sd_err *e);
+/* Fills one record from the current row of a query. */
+typedef int (*dbi_row_fn)(sqlite3_stmt *st, void *rec, struct sd_err *e);
+/* Steps st to the end, filling a malloc'd array of records of `size` bytes with fn; on success
+ * *out (free it) and *n are set. `what` names the read in an error ("read athletes"). */
+int dbi_collect(struct sd_db *db, sqlite3_stmt *st, size_t size, dbi_row_fn fn, void **out,
+		int *n, const char *what, struct sd_err *e);
 /* Applies the embedded migrations (migrate.c). */
 int dbi_migrate(struct sd_db *db, struct sd_err *e);
 

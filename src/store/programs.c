@@ -110,38 +110,22 @@ int db_program_get_id(struct sd_db *db, long long id, struct db_program *out, st
 		      NULL, id, out, e);
 }
 
+static int collect_program(sqlite3_stmt *st, void *rec, struct sd_err *e)
+{
+	return row_program(st, rec, 0, e);
+}
+
 int db_program_list(struct sd_db *db, struct db_program **out, int *n, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	struct db_program *v = NULL;
-	int cap = 0, k = 0, ret = -1, rc;
+	int ret = -1;
 
 	if (dbi_prepare(db, "SELECT id, name, format, created, length(source) FROM programs "
 			    "ORDER BY name COLLATE NOCASE", &st, e))
 		goto done;
-	while ((rc = sqlite3_step(st)) == SQLITE_ROW) {
-		if (k == cap) {
-			struct db_program *nv;
-			cap = cap ? 2 * cap : 16;
-			nv = realloc(v, (size_t)cap * sizeof *v);
-			if (!nv) {
-				sd_fail(e, "out of memory");
-				goto done;
-			}
-			v = nv;
-		}
-		row_program(st, &v[k++], 0, e);
-	}
-	if (rc != SQLITE_DONE) {
-		dbi_fail(db, e, "read programs");
-		goto done;
-	}
-	*out = v;
-	*n = k;
-	v = NULL;
-	ret = 0;
+	ret = dbi_collect(db, st, sizeof(struct db_program), collect_program, (void **)out, n,
+			  "read programs", e);
 done:
-	free(v);
 	sqlite3_finalize(st);
 	return ret;
 }

@@ -29,12 +29,26 @@ done:
 	return ret;
 }
 
+static int collect_test(sqlite3_stmt *st, void *rec, struct sd_err *e)
+{
+	struct db_test *t = rec;
+	(void)e;
+	t->id = sqlite3_column_int64(st, 0);
+	t->athlete_id = sqlite3_column_int64(st, 1);
+	dbi_text(st, 2, t->lift, sizeof t->lift);
+	dbi_text(st, 3, t->date, sizeof t->date);
+	t->load_kg = sqlite3_column_double(st, 4);
+	t->reps = sqlite3_column_int(st, 5);
+	t->e1rm_kg = sqlite3_column_double(st, 6);
+	dbi_text(st, 7, t->formula, sizeof t->formula);
+	return 0;
+}
+
 int db_test_list(struct sd_db *db, long long athlete_id, const char *lift, struct db_test **out,
 		 int *n, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	struct db_test *v = NULL;
-	int cap = 0, k = 0, ret = -1, rc;
+	int ret = -1;
 
 	if (dbi_prepare(db, "SELECT id, athlete_id, lift, test_date, load_kg, reps, e1rm_kg, "
 			    "formula FROM tests WHERE athlete_id = ?1 AND (?2 IS NULL OR lift = ?2 "
@@ -43,38 +57,9 @@ int db_test_list(struct sd_db *db, long long athlete_id, const char *lift, struc
 	sqlite3_bind_int64(st, 1, athlete_id);
 	if (lift)
 		sqlite3_bind_text(st, 2, lift, -1, SQLITE_TRANSIENT);
-	while ((rc = sqlite3_step(st)) == SQLITE_ROW) {
-		struct db_test *t;
-		if (k == cap) {
-			struct db_test *nv;
-			cap = cap ? 2 * cap : 16;
-			nv = realloc(v, (size_t)cap * sizeof *v);
-			if (!nv) {
-				sd_fail(e, "out of memory");
-				goto done;
-			}
-			v = nv;
-		}
-		t = &v[k++];
-		t->id = sqlite3_column_int64(st, 0);
-		t->athlete_id = sqlite3_column_int64(st, 1);
-		dbi_text(st, 2, t->lift, sizeof t->lift);
-		dbi_text(st, 3, t->date, sizeof t->date);
-		t->load_kg = sqlite3_column_double(st, 4);
-		t->reps = sqlite3_column_int(st, 5);
-		t->e1rm_kg = sqlite3_column_double(st, 6);
-		dbi_text(st, 7, t->formula, sizeof t->formula);
-	}
-	if (rc != SQLITE_DONE) {
-		dbi_fail(db, e, "read tests");
-		goto done;
-	}
-	*out = v;
-	*n = k;
-	v = NULL;
-	ret = 0;
+	ret = dbi_collect(db, st, sizeof(struct db_test), collect_test, (void **)out, n,
+			  "read tests", e);
 done:
-	free(v);
 	sqlite3_finalize(st);
 	return ret;
 }

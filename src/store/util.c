@@ -1,6 +1,8 @@
 /* Small helpers shared by the store's files. */
 #include "db_int.h"
 
+#include <stdlib.h>
+
 #include <string.h>
 
 int dbi_prepare(struct sd_db *db, const char *sql, sqlite3_stmt **st, struct sd_err *e)
@@ -57,4 +59,37 @@ int dbi_count(struct sd_db *db, const char *sql, long long id, long long *out, s
 done:
 	sqlite3_finalize(st);
 	return ret;
+}
+
+int dbi_collect(struct sd_db *db, sqlite3_stmt *st, size_t size, dbi_row_fn fn, void **out,
+		int *n, const char *what, struct sd_err *e)
+{
+	char *v = NULL;
+	int cap = 0, k = 0, rc;
+
+	while ((rc = sqlite3_step(st)) == SQLITE_ROW) {
+		if (k == cap) {
+			char *nv;
+			cap = cap ? 2 * cap : 16;
+			nv = realloc(v, (size_t)cap * size);
+			if (!nv) {
+				sd_fail(e, "out of memory");
+				goto fail;
+			}
+			v = nv;
+		}
+		if (fn(st, v + (size_t)k * size, e))
+			goto fail;
+		k++;
+	}
+	if (rc != SQLITE_DONE) {
+		dbi_fail(db, e, what);
+		goto fail;
+	}
+	*out = v;
+	*n = k;
+	return 0;
+fail:
+	free(v);
+	return -1;
 }
