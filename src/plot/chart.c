@@ -110,7 +110,8 @@ static void axes(cairo_t *cr, const struct frame *f)
 		cairo_line_to(cr, f->x + f->w, py(f, y));
 		cairo_stroke(cr);
 		cairo_set_source_rgb(cr, INK);
-		snprintf(buf, sizeof buf, "%+.0f%%", y);
+		/* y + 0.0 would keep a negative zero; print 0 as "0%". */
+		snprintf(buf, sizeof buf, "%+.0f%%", fabs(y) < 1e-9 ? 0.0 : y);
 		text(cr, f->x - 6, py(f, y) + 4, 10, 0, 1, buf);
 	}
 	for (double x = ceil(f->x0 / sx) * sx; x <= f->x1 + 1e-9; x += sx) {
@@ -211,18 +212,28 @@ static void draw_chart(cairo_t *cr, const struct sd_chart *c, double x, double y
 				order[j - 1] = t;
 			}
 		static const double lift[4] = { -10, 18, -22, 30 };
-		for (int k = 0; k < n; k++) {
+		/* Muscles at the same dose share one mark and one label. */
+		for (int k = 0, slot = 0; k < n; slot++) {
 			const struct sd_audit_row *r = &c->audit->row[order[k]];
 			double mx = px(&f, r->dose.fractional), my = py(&f, curve_pct(r->pt.y));
-			double ly = my + lift[k % 4];
+			double ly = my + lift[slot % 4];
+			char names[160];
+			size_t used = 0;
+			int j = k;
+			names[0] = '\0';
+			for (; j < n && c->audit->row[order[j]].dose.fractional - r->dose.fractional < 1e-9; j++)
+				if (used < sizeof names)
+					used += (size_t)snprintf(names + used, sizeof names - used, "%s%s",
+								 j > k ? ", " : "", muscle_name(order[j]));
+			k = j;
 			cairo_set_source_rgb(cr, MARK);
 			cairo_arc(cr, mx, my, 3.5, 0, 2 * M_PI);
 			cairo_fill(cr);
 			cairo_set_line_width(cr, 0.5);
 			cairo_move_to(cr, mx, my);
-			cairo_line_to(cr, mx, ly + (lift[k % 4] > 0 ? -9 : 2));
+			cairo_line_to(cr, mx, ly + (lift[slot % 4] > 0 ? -9 : 2));
 			cairo_stroke(cr);
-			text(cr, mx, ly, 8.5, 0, 0.5, muscle_name(order[k]));
+			text(cr, mx, ly, 8.5, 0, 0.5, names);
 		}
 	}
 	/* Legend */
