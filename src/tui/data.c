@@ -1,0 +1,411 @@
+/* What the views show, read from the store and computed by the same functions the commands
+ * use: audit_run for doses, the response command itself for the personal response. */
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+#include "../cmd/dbutil.h"
+#include "../io/csv.h"
+#include "../io/program_io.h"
+#include "app.h"
+
+void tui_today(char *buf)
+{
+	if (dbu_today(buf, NULL))
+		snprintf(buf, DATE_LEN, "2000-01-01");
+}
+
+struct sd_covars tui_covars(const struct tui_app *a)
+{
+	struct sd_covars c = { a->st.context.weeks, a->st.context.trained };
+	return c;
+}
+
+int tui_context_act(struct tui_app *a, int action)
+{
+	switch (action) {
+	case TUI_ACT_STATUS:
+		tui_context_toggle_status(&a->st.context);
+		break;
+	case TUI_ACT_WEEKS_DOWN:
+		tui_context_weeks(&a->st.context, -1);
+		break;
+	case TUI_ACT_WEEKS_UP:
+		tui_context_weeks(&a->st.context, 1);
+		break;
+	case TUI_ACT_OWN:
+		tui_context_reset(&a->st.context, a->st.context.base_trained, a->st.context.base_weeks);
+		break;
+	default:
+		return 0;
+	}
+	tui_subject_refresh(a, &a->a);
+	tui_subject_refresh(a, &a->b);
+	return 1;
+}
+
+void tui_context_text(const struct tui_app *a, char *buf, size_t n)
+{
+	const struct tui_context *c = &a->st.context;
+	int len = snprintf(buf, n, "%s, %.3g-week block", c->trained ? "trained" : "untrained",
+			   c->weeks);
+	if (tui_context_changed(c) && len > 0 && (size_t)len < n)
+		snprintf(buf + len, n - (size_t)len, " (own: %s, %.3g wk)",
+			 c->base_trained ? "trained" : "untrained", c->base_weeks);
+}
+
+void tui_filter_roster(struct tui_app *a)
+{
+	int k = 0;
+	for (int i = 0; i < a->nathletes; i++)
+		if (tui_filter_match(&a->st.search, a->athletes[i].name))
+			a->match[k++] = i;
+	a->nmatch = k;
+	tui_list_count(&a->st.roster, k);
+}
+
+int tui_load_athletes(struct tui_app *a, struct sd_err *e)
+{
+	struct db_athlete *v = NULL;
+	int n = 0;
+
+	if (db_athlete_list(a->ctx->db, &v, &n, e))
+		return -1;
+	free(a->athletes);
+	free(a->match);
+	free(a->athlete_names);
+	a->athletes = v;
+	a->nathletes = n;
+	a->match = malloc((size_t)(n ? n : 1) * sizeof *a->match);
+	a->athlete_names = malloc((size_t)(n ? n : 1) * sizeof *a->athlete_names);
+	if (!a->match || !a->athlete_names) {
+		a->nathletes = 0;
+		return sd_fail(e, "out of memory");
+	}
+	for (int i = 0; i < n; i++)
+		a->athlete_names[i] = v[i].name;
+	tui_filter_roster(a);
+	return 0;
+}
+
+int tui_load_programs(struct tui_app *a, struct sd_err *e)
+{
+	struct db_program *v = NULL;
+	int n = 0;
+
+	if (db_program_list(a->ctx->db, &v, &n, e))
+		return -1;
+	db_program_list_free(a->progs, a->nprogs);
+	free(a->prog_names);
+	a->progs = v;
+	a->nprogs = n;
+	a->prog_names = malloc((size_t)(n ? n : 1) * sizeof *a->prog_names);
+	if (!a->prog_names) {
+		a->nprogs = 0;
+		return sd_fail(e, "out of memory");
+	}
+	for (int i = 0; i < n; i++)
+		a->prog_names[i] = v[i].name;
+	tui_list_count(&a->st.shelf, n);
+	return 0;
+}
+
+/* Open blocks first (the latest start is the current one), then ended ones, newest first. */
+static int block_order(const void *x, const void *y)
+{
+	const struct db_block *p = x, *q = y;
+	int c;
+	if (!p->end[0] != !q->end[0])
+		return p->end[0] ? 1 : -1;
+	if ((c = strcmp(q->start, p->start)))
+		return c;
+	return q->id > p->id ? 1 : q->id < p->id ? -1 : 0;
+}
+
+static int test_order(const void *x, const void *y)
+{
+	const struct db_test *p = x, *q = y;
+	int c;
+	if ((c = strcmp(q->date, p->date)))
+		return c;
+	return q->id > p->id ? 1 : q->id < p->id ? -1 : 0;
+}
+
+void tui_resp_free(struct tui_resp *r)
+{
+	free(r->obs);
+	memset(r, 0, sizeof *r);
+}
+
+static double num(char **f, int n, int i)
+{
+	return i < n ? strtod(f[i], NULL) : 0;
+}
+
+/* Reads the CSV the response command prints: the observations, a blank line, then the
+ * personal estimate under a header starting "observations". */
+static int parse_response(struct tui_resp *r, const char *text, size_t len, struct sd_err *e)
+{
+	struct sd_csv *c = csv_open_mem("response", text, len, e);
+	char **f;
+	int n, rc, state = 0, ret = -1;
+
+	if (!c)
+		return -1;
+	while ((rc = csv_next(c, &f, &n, e)) == 1) {
+		if (state == 0) {
+			state = 1;   /* the observations' header */
+			continue;
+		}
+		if (state == 1 && n > 0 && !strcmp(f[0], "observations")) {
+			state = 2;
+			continue;
+		}
+		if (state == 1 && n >= 13) {
+			struct tui_obs *o = realloc(r->obs, (size_t)(r->nobs + 1) * sizeof *o);
+			if (!o) {
+				sd_fail(e, "out of memory");
+				goto done;
+			}
+			r->obs = o;
+			o = &r->obs[r->nobs++];
+			o->block = strtoll(f[0], NULL, 10);
+			snprintf(o->lift, sizeof o->lift, "%s", f[1]);
+			o->change = num(f, n, 6);
+			o->dose = num(f, n, 8);
+			o->predicted = num(f, n, 9);
+			o->lo = num(f, n, 10);
+			o->hi = num(f, n, 11);
+			o->pctile = num(f, n, 12);
+		} else if (state == 2 && n >= 12) {
+			r->n = (int)num(f, n, 0);
+			r->nblocks = (int)num(f, n, 1);
+			r->pct = num(f, n, 6);
+			r->lo = num(f, n, 7);
+			r->hi = num(f, n, 8);
+			r->weight = num(f, n, 11);
+			r->ok = 1;
+			state = 3;
+		}
+	}
+	if (rc < 0)
+		goto done;
+	if (!r->ok) {
+		sd_fail(e, "the response command gave no personal estimate");
+		goto done;
+	}
+	ret = 0;
+done:
+	csv_close(c);
+	return ret;
+}
+
+/* Runs the response command itself, in CSV, into memory: the page shows exactly the numbers
+ * `setdose response ATHLETE` prints. */
+static void load_response(struct tui_app *a)
+{
+	struct sd_ctx c = *a->ctx;
+	struct sd_err e;
+	const struct sd_cmd *cmd;
+	char *buf = NULL, name[DB_NAME_MAX];
+	size_t len = 0;
+	char *argv[] = { "response", name, NULL };
+	FILE *f;
+	int rc;
+
+	tui_resp_free(&a->resp);
+	sd_err_clear(&e);
+	snprintf(name, sizeof name, "%s", a->cur.name);
+	if (!(cmd = cmd_find("response", &e)) || !(f = open_memstream(&buf, &len))) {
+		snprintf(a->resp.err, sizeof a->resp.err, "%s",
+			 e.msg[0] ? e.msg : "cannot run the response computation");
+		return;
+	}
+	c.out = f;
+	c.opt.format = SD_FMT_CSV;
+	rc = cmd->exec(&c, 2, argv, &e);
+	if (fclose(f))
+		rc = sd_fail(&e, "cannot read the response output");
+	if (!rc)
+		rc = parse_response(&a->resp, buf, len, &e);
+	if (rc) {
+		tui_resp_free(&a->resp);
+		snprintf(a->resp.err, sizeof a->resp.err, "%s", e.msg);
+	}
+	free(buf);
+}
+
+int tui_athlete_row(const struct tui_app *a, int i, int *idx)
+{
+	int nb = a->nblocks ? a->nblocks : 1;
+	*idx = -1;
+	if (i == 0)
+		return TUI_ROW_HEAD;
+	if (i <= nb) {
+		*idx = i - 1;
+		return a->nblocks ? TUI_ROW_BLOCK : TUI_ROW_EMPTY;
+	}
+	if (i == nb + 1)
+		return TUI_ROW_HEAD;
+	*idx = i - nb - 2;
+	return a->ntests ? TUI_ROW_TEST : TUI_ROW_EMPTY;
+}
+
+int tui_current_block(const struct tui_app *a)
+{
+	return a->nblocks && !a->blocks[0].end[0] ? 0 : -1;
+}
+
+int tui_load_athlete(struct tui_app *a, long long id, struct sd_err *e)
+{
+	struct db_block *b = NULL;
+	struct db_test *t = NULL;
+	unsigned char *ok = NULL;
+	int nb = 0, nt = 0, found = -1, nrows;
+
+	for (int i = 0; i < a->nathletes; i++)
+		if (a->athletes[i].id == id)
+			found = i;
+	if (found < 0)
+		return sd_fail(e, "the athlete is no longer in the database");
+	if (db_block_list(a->ctx->db, id, &b, &nb, e) || db_test_list(a->ctx->db, id, NULL, &t, &nt, e))
+		goto fail;
+	nrows = 2 + (nb ? nb : 1) + (nt ? nt : 1);
+	if (!(ok = malloc((size_t)nrows))) {
+		sd_fail(e, "out of memory");
+		goto fail;
+	}
+	if (nb)
+		qsort(b, (size_t)nb, sizeof *b, block_order);
+	if (nt)
+		qsort(t, (size_t)nt, sizeof *t, test_order);
+	free(a->blocks);
+	free(a->tests);
+	free(a->row_ok);
+	a->cur = a->athletes[found];
+	a->have_athlete = 1;
+	a->blocks = b;
+	a->nblocks = nb;
+	a->tests = t;
+	a->ntests = nt;
+	a->row_ok = ok;
+	a->nrows = nrows;
+	for (int i = 0; i < nrows; i++) {
+		int idx, k = tui_athlete_row(a, i, &idx);
+		ok[i] = k == TUI_ROW_BLOCK || k == TUI_ROW_TEST;
+	}
+	tui_list_count(&a->st.athlete, nrows);
+	/* Rows move when a block or test is added: stay off the headings. */
+	tui_list_move_skip(&a->st.athlete, 0, a->row_ok);
+	load_response(a);
+	return 0;
+fail:
+	free(b);
+	free(t);
+	return -1;
+}
+
+void tui_subject_free(struct tui_subject *s)
+{
+	if (s->ready)
+		audit_free(&s->audit);
+	prog_free(&s->prog);
+	db_program_free(&s->rec);
+	memset(s, 0, sizeof *s);
+}
+
+void tui_subject_refresh(struct tui_app *a, struct tui_subject *s)
+{
+	struct sd_audit_opts o = { a->ctx->opt.level, a->ctx->opt.max_rir, SD_SESSION_CAP };
+	struct sd_covars cov = tui_covars(a);
+	struct sd_err e;
+
+	if (s->ready) {
+		audit_free(&s->audit);
+		s->ready = 0;
+	}
+	if (s->err[0] || !s->rec.source)
+		return;
+	sd_err_clear(&e);
+	if (audit_run(&s->prog, &a->ctx->lib, &a->ctx->profile, &cov, &o, &s->audit, &e)) {
+		snprintf(s->err, sizeof s->err, "%s", e.msg);
+		return;
+	}
+	s->ready = 1;
+}
+
+/* Parses the subject's template; a template that no longer reads (the library changed) is
+ * shown with its error rather than refused. */
+static void subject_parse(struct tui_app *a, struct tui_subject *s)
+{
+	struct sd_err e;
+	sd_err_clear(&e);
+	if (program_parse(s->rec.name, s->rec.source, s->rec.len, s->rec.is_csv, &a->ctx->lib,
+			  &s->prog, &e)) {
+		memset(&s->prog, 0, sizeof s->prog);
+		snprintf(s->err, sizeof s->err, "%s", e.msg);
+	}
+}
+
+int tui_subject_block(struct tui_app *a, struct tui_subject *s, const struct db_block *b,
+		      int reset_context, struct sd_err *e)
+{
+	struct db_block copy = *b;
+
+	tui_subject_free(s);
+	if (db_program_get_id(a->ctx->db, copy.program_id, &s->rec, e))
+		return -1;
+	s->kind = TUI_SUBJ_BLOCK;
+	s->block = copy;
+	snprintf(s->label, sizeof s->label, "block %lld '%s'", copy.id, s->rec.name);
+	subject_parse(a, s);
+	/* The same context `block show` uses: the athlete's status and the block's length
+	 * (the actual one once ended). */
+	if (reset_context)
+		tui_context_reset(&a->st.context, copy.trained, dbu_block_weeks(&copy));
+	tui_subject_refresh(a, s);
+	return 0;
+}
+
+int tui_subject_template(struct tui_app *a, struct tui_subject *s, long long program_id,
+			 int reset_context, struct sd_err *e)
+{
+	tui_subject_free(s);
+	if (db_program_get_id(a->ctx->db, program_id, &s->rec, e))
+		return -1;
+	s->kind = TUI_SUBJ_TEMPLATE;
+	snprintf(s->label, sizeof s->label, "template '%s'", s->rec.name);
+	subject_parse(a, s);
+	if (reset_context) {
+		/* The same context `audit` uses for a program file. */
+		struct sd_covars c = cmd_covars(a->ctx, s->err[0] ? 0 : s->prog.weeks);
+		tui_context_reset(&a->st.context, c.trained >= 0.5, c.weeks);
+	}
+	tui_subject_refresh(a, s);
+	return 0;
+}
+
+void tui_data_free(struct tui_app *a)
+{
+	free(a->athletes);
+	free(a->match);
+	free(a->athlete_names);
+	db_program_list_free(a->progs, a->nprogs);
+	free(a->prog_names);
+	free(a->blocks);
+	free(a->tests);
+	free(a->row_ok);
+	tui_resp_free(&a->resp);
+	tui_subject_free(&a->a);
+	tui_subject_free(&a->b);
+	tui_edit_free(a);
+	a->athletes = NULL;
+	a->match = NULL;
+	a->athlete_names = NULL;
+	a->progs = NULL;
+	a->prog_names = NULL;
+	a->blocks = NULL;
+	a->tests = NULL;
+	a->row_ok = NULL;
+	a->nathletes = a->nprogs = a->nblocks = a->ntests = a->nrows = a->nmatch = 0;
+}

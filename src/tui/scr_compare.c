@@ -1,0 +1,163 @@
+/* The compare view: two templates side by side per muscle, for the same athlete context. The
+ * difference B - A of the predicted gains, its interval, the chances it exceeds the smallest
+ * worthwhile change either way and the verdict all come from core/compare.h (cmp_muscle), as
+ * in the compare command. */
+#include <curses.h>
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "../core/compare.h"
+#include "app.h"
+
+enum { K_UP = 1, K_DOWN, K_PGUP, K_PGDN, K_HOME, K_END, K_SWAP };
+
+static const struct tui_bind keys[] = {
+	{ { KEY_UP }, K_UP, "Up", "previous muscle" },
+	{ { KEY_DOWN }, K_DOWN, "Down", "next muscle" },
+	{ { KEY_PPAGE }, K_PGUP, "PgUp", "a screenful up" },
+	{ { KEY_NPAGE }, K_PGDN, "PgDn", "a screenful down" },
+	{ { KEY_HOME }, K_HOME, "Home", "first muscle" },
+	{ { KEY_END }, K_END, "End", "last muscle" },
+	{ { 'x' }, K_SWAP, "x", "swap A and B" },
+	TUI_CONTEXT_BINDS,
+	{ { 0 }, 0, NULL, NULL },
+};
+
+static void pair_of(const struct tui_app *a, int m, struct cmp_diff *out)
+{
+	struct sd_covars cov = tui_covars(a);
+	cmp_muscle(&a->ctx->profile, &cov, a->ctx->opt.level, a->a.audit.row[m].dose.fractional,
+		   a->b.audit.row[m].dose.fractional, out);
+}
+
+static void init(struct tui_app *a)
+{
+	tui_list_reset(&a->st.pairs, SD_NMUSCLES);
+}
+
+/* The difference in sets as a bar from a centre line: right when B has more. */
+static void diff_gauge(struct tui_app *a, int y, int x, int w, double diff, double span)
+{
+	int half = w / 2, n = (int)lround(fabs(diff) / span * half);
+
+	if (n > half)
+		n = half;
+	attrset(tui_attr(TR_AXIS));
+	for (int i = 0; i < w; i++)
+		mvaddstr(y, x + i, i == half ? (a->unicode ? "\u2502" : "|") : " ");
+	attrset(tui_attr(diff > 0 ? TR_CI : TR_WARN));
+	for (int i = 1; i <= n; i++)
+		mvaddstr(y, diff > 0 ? x + half + i : x + half - i,
+			 i == n ? (diff > 0 ? (a->unicode ? "\u25b6" : ">") : (a->unicode ? "\u25c0" : "<"))
+				: (a->unicode ? "\u2501" : "="));
+	attrset(A_NORMAL);
+}
+
+static void draw(struct tui_app *a)
+{
+	const struct sd_profile *p = &a->ctx->profile;
+	int top = 5, rows = LINES - 9, gx = 26, gw, lvl = (int)lround(a->ctx->opt.level * 100);
+	double span = 5;
+	struct cmp_diff pr[SD_NMUSCLES];
+	char ctx[160];
+
+	tui_putf(1, 1, COLS - 2, TR_HEAD, "A: '%s'", a->a.rec.name);
+	tui_putf(2, 1, COLS - 2, TR_HEAD, "B: '%s'", a->b.rec.name);
+	if (!a->a.ready || !a->b.ready) {
+		tui_putf(4, 1, COLS - 2, TR_ERR, "cannot compare: %s", !a->a.ready ? a->a.err : a->b.err);
+		return;
+	}
+	tui_putf(1, COLS / 2, COLS - COLS / 2 - 1, TR_PLAIN, "%d hard sets a week", a->a.audit.vol.hard_sets);
+	tui_putf(2, COLS / 2, COLS - COLS / 2 - 1, TR_PLAIN, "%d hard sets a week", a->b.audit.vol.hard_sets);
+	tui_context_text(a, ctx, sizeof ctx);
+	tui_putf(3, 1, COLS - 2, TR_DIM, "%s; diff: B's predicted 1RM over A's, %d%% CI; P gain / loss: "
+		 "chance it is beyond +/- the SWC %.1f%%", ctx, lvl, curve_pct(p->swc));
+	for (int m = 0; m < SD_NMUSCLES; m++) {
+		pair_of(a, m, &pr[m]);
+		if (fabs(pr[m].xb - pr[m].xa) > span)
+			span = fabs(pr[m].xb - pr[m].xa);
+	}
+	gw = COLS - gx - 1 - 37;
+	if (gw < 7)
+		gw = 7;
+	tui_put(top - 1, 1, 12, TR_HEAD, "muscle");
+	tui_put(top - 1, 14, 5, TR_HEAD, "    A");
+	tui_put(top - 1, 20, 5, TR_HEAD, "    B");
+	tui_putf(top - 1, gx, gw, TR_HEAD, "%*s", gw / 2 + 3, "B - A");
+	tui_put(top - 1, gx + gw + 1, 6, TR_HEAD, " diff%");
+	tui_putf(top - 1, gx + gw + 8, 15, TR_HEAD, "    %d%% CI", lvl);
+	tui_put(top - 1, gx + gw + 24, 6, TR_HEAD, "P gain");
+	tui_put(top - 1, gx + gw + 31, 6, TR_HEAD, "P loss");
+	tui_list_fit(&a->st.pairs, rows);
+	for (int r = 0; r < a->st.pairs.rows && a->st.pairs.top + r < SD_NMUSCLES; r++) {
+		int m = a->st.pairs.top + r, y = top + r, sel = m == a->st.pairs.sel;
+		enum tui_role role = sel ? TR_SEL : TR_PLAIN;
+		const struct cmp_diff *q = &pr[m];
+		if (sel)
+			tui_fill(y, 0, COLS, TR_SEL);
+		tui_put(y, 1, 12, role, muscle_name(m));
+		tui_putf(y, 14, 5, role, "%5.1f", q->xa);
+		tui_putf(y, 20, 5, role, "%5.1f", q->xb);
+		diff_gauge(a, y, gx, gw, q->xb - q->xa, span);
+		tui_putf(y, gx + gw + 1, 6, role, "%+6.1f", curve_pct(q->d));
+		tui_putf(y, gx + gw + 8, 15, role, "%6.1f to %-6.1f", curve_pct(q->lo), curve_pct(q->hi));
+		tui_putf(y, gx + gw + 24, 6, q->p_gain >= 0.5 && !sel ? TR_OK : role, "%6.2f", q->p_gain);
+		tui_putf(y, gx + gw + 31, 6, q->p_loss >= 0.5 && !sel ? TR_WARN : role, "%6.2f", q->p_loss);
+	}
+	{
+		int m = a->st.pairs.sel;
+		const struct cmp_diff *q = &pr[m];
+		const struct sd_audit_row *ra = &a->a.audit.row[m], *rb = &a->b.audit.row[m];
+		tui_putf(LINES - 4, 1, COLS - 2, TR_PLAIN, "%s: A %.1f sets, gain %+.1f%% (%s); B %.1f sets, "
+			 "gain %+.1f%% (%s)", muscle_name(m), q->xa, curve_pct(ra->pt.y), zone_name(ra->zone),
+			 q->xb, curve_pct(rb->pt.y), zone_name(rb->zone));
+		tui_putf(LINES - 3, 1, COLS - 2, TR_PLAIN, "B over A %+.1f%% (%d%% CI %.1f to %.1f): %s",
+			 curve_pct(q->d), lvl, curve_pct(q->lo), curve_pct(q->hi),
+			 cmp_verdict_text(q->verdict));
+	}
+	tui_putf(LINES - 2, 1, COLS - 2, TR_DIM, "x swap A and B %s s status %s [ ] weeks %s Esc back",
+		 a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|");
+}
+
+static void swap(struct tui_app *a)
+{
+	struct tui_subject t = a->a;
+	a->a = a->b;
+	a->b = t;
+}
+
+static int key(struct tui_app *a, int ch)
+{
+	int act = tui_action(keys, ch);
+
+	if (tui_context_act(a, act))
+		return 1;
+	switch (act) {
+	case K_UP:
+		tui_list_move(&a->st.pairs, -1);
+		return 1;
+	case K_DOWN:
+		tui_list_move(&a->st.pairs, 1);
+		return 1;
+	case K_PGUP:
+		tui_list_page(&a->st.pairs, -1);
+		return 1;
+	case K_PGDN:
+		tui_list_page(&a->st.pairs, 1);
+		return 1;
+	case K_HOME:
+		tui_list_select(&a->st.pairs, 0);
+		return 1;
+	case K_END:
+		tui_list_select(&a->st.pairs, SD_NMUSCLES - 1);
+		return 1;
+	case K_SWAP:
+		swap(a);
+		return 1;
+	default:
+		return 0;
+	}
+}
+
+const struct tui_screen tui_compare_screen = { "compare", init, draw, key, keys };

@@ -1,0 +1,200 @@
+/* The dose view: per muscle the weekly fractional sets as a gauge on a scale marking the
+ * practical plateau and the end of the evidence, the predicted gain with its bands, what one
+ * more weekly set buys, the zone, and the audit's warnings. All from audit_run. */
+#include <curses.h>
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "app.h"
+
+enum { K_UP = 1, K_DOWN, K_PGUP, K_PGDN, K_HOME, K_END, K_CURVE, K_WARN };
+
+static const struct tui_bind keys[] = {
+	{ { KEY_UP }, K_UP, "Up", "previous muscle (or warning)" },
+	{ { KEY_DOWN }, K_DOWN, "Down", "next muscle (or warning)" },
+	{ { KEY_PPAGE }, K_PGUP, "PgUp", "a screenful up" },
+	{ { KEY_NPAGE }, K_PGDN, "PgDn", "a screenful down" },
+	{ { KEY_HOME }, K_HOME, "Home", "first muscle" },
+	{ { KEY_END }, K_END, "End", "last muscle" },
+	{ { '\r', '\n', KEY_ENTER }, K_CURVE, "Enter", "the curve, its cursor at this muscle's dose" },
+	{ { 'k', KEY_RIGHT }, K_CURVE, "k Right", "the curve, its cursor at this muscle's dose" },
+	{ { 'w' }, K_WARN, "w", "the warnings in full, or back to the muscles" },
+	TUI_CONTEXT_BINDS,
+	{ { 0 }, 0, NULL, NULL },
+};
+
+static void init(struct tui_app *a)
+{
+	tui_list_reset(&a->st.muscles, SD_NMUSCLES);
+	if (a->st.warn_pane)
+		tui_warn_pane_toggle(&a->st);
+}
+
+static void draw_row(struct tui_app *a, const struct sd_audit *au, int m, int y, int sel,
+		     int gx, int gw, double smax, int wide)
+{
+	const struct sd_audit_row *r = &au->row[m];
+	const struct sd_profile *p = &a->ctx->profile;
+	enum tui_role role = sel ? TR_SEL : TR_PLAIN, zr = tui_zone_role(r->zone);
+	int x = gx + gw + 1;
+	char zone[24];
+
+	if (sel)
+		tui_fill(y, 0, COLS, TR_SEL);
+	tui_put(y, 1, 12, role, muscle_name(m));
+	tui_putf(y, 13, 5, r->dose.fractional > 0 ? role : (sel ? TR_SEL : TR_DIM), "%5.1f",
+		 r->dose.fractional);
+	tui_gauge(a, y, gx, gw, smax, r->dose.fractional, au->plateau, p->dose_max, zr);
+	tui_putf(y, x, 6, role, "%+6.1f", curve_pct(r->pt.y));
+	tui_putf(y, x + 7, 13, role, "%5.1f to %-5.1f", curve_pct(r->pt.ci_lo), curve_pct(r->pt.ci_hi));
+	x += 21;
+	if (wide) {
+		tui_putf(y, x, 13, role, "%5.1f to %-5.1f", curve_pct(r->pt.pi_lo),
+			 curve_pct(r->pt.pi_hi));
+		x += 14;
+	}
+	tui_putf(y, x, 6, role, "%+6.2f", r->marg.pct);
+	snprintf(zone, sizeof zone, "%s", zone_name(r->zone));
+	if (!wide && r->zone == SD_ZONE_BEYOND)
+		snprintf(zone, sizeof zone, "beyond");
+	tui_put(y, x + 7, COLS - x - 7, sel ? TR_SEL : zr, zone);
+}
+
+static void draw_detail(const struct sd_audit *au, int m, int y)
+{
+	const struct sd_audit_row *r = &au->row[m];
+	int lvl = (int)lround(au->level * 100);
+
+	tui_putf(y, 1, COLS - 2, TR_PLAIN, "%s %.1f sets: %g direct, %g indirect; %d session%s, at "
+		 "most %.1f in one%s; %s", muscle_name(m), r->dose.fractional, r->dose.direct,
+		 r->dose.indirect, r->dose.sessions, r->dose.sessions == 1 ? "" : "s",
+		 r->dose.max_session, r->dose.easy > 0 ? "; easy sets not counted" : "",
+		 zone_name(r->zone));
+	tui_putf(y + 1, 1, COLS - 2, TR_PLAIN, "gain %+.1f%% (%d%% CI %.1f to %.1f; PI %.1f to %.1f); "
+		 "+1 set %+.2f%% (%.2f to %.2f)", curve_pct(r->pt.y), lvl, curve_pct(r->pt.ci_lo),
+		 curve_pct(r->pt.ci_hi), curve_pct(r->pt.pi_lo), curve_pct(r->pt.pi_hi), r->marg.pct,
+		 r->marg.lo, r->marg.hi);
+}
+
+static void draw_warnings(struct tui_app *a, const struct sd_audit *au, int top, int rows)
+{
+	tui_scroll_total(&a->st.warn, au->nwarn);
+	tui_scroll_fit(&a->st.warn, rows);
+	tui_putf(top - 1, 1, COLS - 2, TR_HEAD, "warnings (%d)", au->nwarn);
+	for (int r = 0; r < rows && a->st.warn.off + r < au->nwarn; r++)
+		tui_putf(top + r, 1, COLS - 2, TR_WARN, "%s %s", a->unicode ? "\u25aa" : "*",
+			 au->warn[a->st.warn.off + r].text);
+	if (!au->nwarn)
+		tui_put(top, 1, COLS - 2, TR_DIM, "no warnings");
+}
+
+static void draw(struct tui_app *a)
+{
+	const struct tui_subject *s = &a->a;
+	const struct sd_audit *au = &s->audit;
+	const struct sd_profile *p = &a->ctx->profile;
+	int wide = COLS >= 110, gx = 19, gw, top = 4, rows = LINES - 8, lvl, lw;
+	double dmax = 0, smax;
+	char ctx[160], legend[96];
+
+	tui_context_text(a, ctx, sizeof ctx);
+	tui_putf(1, 1, COLS - 2, TR_HEAD, "%s", s->label);
+	if (!s->ready) {
+		tui_putf(3, 1, COLS - 2, TR_ERR, "cannot show it: %s", s->err);
+		return;
+	}
+	lvl = (int)lround(au->level * 100);
+	tui_putf(2, 1, COLS - 2, TR_PLAIN, "%s; %d day%s, %d hard sets a week", ctx, s->prog.ndays,
+		 s->prog.ndays == 1 ? "" : "s", au->vol.hard_sets);
+	for (int m = 0; m < SD_NMUSCLES; m++)
+		if (au->row[m].dose.fractional > dmax)
+			dmax = au->row[m].dose.fractional;
+	smax = tui_gauge_max(p->dose_max, dmax);
+	gw = COLS - gx - 1 - 21 - (wide ? 14 : 0) - 7 - (wide ? 16 : 9);
+	if (gw < 8)
+		gw = 8;
+	tui_put(top - 1, 1, 12, TR_HEAD, "muscle");
+	tui_put(top - 1, 14, 4, TR_HEAD, "sets");
+	tui_gauge_scale(a, top - 1, gx, gw, smax, au->plateau, p->dose_max);
+	{
+		int x = gx + gw + 1;
+		tui_put(top - 1, x, 6, TR_HEAD, " gain%");
+		tui_putf(top - 1, x + 7, 13, TR_HEAD, "   %d%% CI", lvl);
+		x += 21;
+		if (wide) {
+			tui_putf(top - 1, x, 13, TR_HEAD, "   %d%% PI", lvl);
+			x += 14;
+		}
+		tui_put(top - 1, x, 6, TR_HEAD, "+1 set");
+		tui_put(top - 1, x + 7, 10, TR_HEAD, "zone");
+	}
+	if (a->st.warn_pane) {
+		draw_warnings(a, au, top + 1, rows - 1);
+	} else {
+		tui_list_fit(&a->st.muscles, rows);
+		for (int r = 0; r < a->st.muscles.rows && a->st.muscles.top + r < SD_NMUSCLES; r++) {
+			int m = a->st.muscles.top + r;
+			draw_row(a, au, m, top + r, m == a->st.muscles.sel, gx, gw, smax, wide);
+		}
+		/* A tall window has room for the warnings under the muscles. */
+		if (au->nwarn && rows - SD_NMUSCLES >= 3)
+			draw_warnings(a, au, top + SD_NMUSCLES + 2, rows - SD_NMUSCLES - 2);
+	}
+	draw_detail(au, a->st.muscles.sel, LINES - 4);
+	/* The bottom line: the scale's two marks on the right, the warnings on the left. */
+	snprintf(legend, sizeof legend, "%s plateau %g  %s end of evidence %g",
+		 a->unicode ? "\u250a" : ":", au->plateau, a->unicode ? "\u2503" : "|", p->dose_max);
+	lw = tui_width(legend);
+	tui_put(LINES - 2, COLS - lw - 1, lw, TR_DIM, legend);
+	if (au->nwarn)
+		tui_putf(LINES - 2, 1, COLS - lw - 3, TR_WARN, "%d warning%s%s: %s", au->nwarn,
+			 au->nwarn == 1 ? "" : "s", a->st.warn_pane ? "" : " (w lists)", au->warn[0].text);
+	else
+		tui_put(LINES - 2, 1, COLS - lw - 3, TR_DIM, "no warnings");
+}
+
+static int key(struct tui_app *a, int ch)
+{
+	int act = tui_action(keys, ch);
+
+	if (tui_context_act(a, act))
+		return 1;
+	if (a->st.warn_pane && (act == K_UP || act == K_DOWN || act == K_PGUP || act == K_PGDN)) {
+		int d = act == K_UP ? -1 : act == K_DOWN ? 1 : act == K_PGUP ? -a->st.warn.rows
+									   : a->st.warn.rows;
+		tui_scroll_by(&a->st.warn, d);
+		return 1;
+	}
+	switch (act) {
+	case K_UP:
+		tui_list_move(&a->st.muscles, -1);
+		return 1;
+	case K_DOWN:
+		tui_list_move(&a->st.muscles, 1);
+		return 1;
+	case K_PGUP:
+		tui_list_page(&a->st.muscles, -1);
+		return 1;
+	case K_PGDN:
+		tui_list_page(&a->st.muscles, 1);
+		return 1;
+	case K_HOME:
+		tui_list_select(&a->st.muscles, 0);
+		return 1;
+	case K_END:
+		tui_list_select(&a->st.muscles, SD_NMUSCLES - 1);
+		return 1;
+	case K_CURVE:
+		if (a->a.ready)
+			tui_open(a, TUI_CURVE);
+		return 1;
+	case K_WARN:
+		tui_warn_pane_toggle(&a->st);
+		return 1;
+	default:
+		return 0;
+	}
+}
+
+const struct tui_screen tui_dose_screen = { "dose", init, draw, key, keys };
