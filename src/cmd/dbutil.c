@@ -174,3 +174,22 @@ int dbu_no_negatives(int argc, char **argv, struct sd_err *e)
 	}
 	return 0;
 }
+
+/* The library's name for a lift, or an error suggesting the closest names. */
+int dbu_lift(const struct sd_library *lib, const char *lift, char *buf, size_t n, struct sd_err *e)
+{
+	int k = lib_find(lib, lift), near[3], nn;
+	char hint[200] = "";
+
+	if (!lift[0])
+		return sd_fail(e, "the lift is empty");
+	if (k >= 0) {
+		snprintf(buf, n, "%s", lib->ex[k].name);
+		return 0;
+	}
+	nn = lib_suggest(lib, lift, near, 3);
+	for (int i = 0; i < nn; i++)
+		snprintf(hint + strlen(hint), sizeof hint - strlen(hint), "%s'%s'",
+			 i ? ", " : " (did you mean ", lib->ex[near[i]].name);
+	return sd_fail(e, "unknown lift '%s'%s%s", lift, hint, nn ? ")" : "");
+}

@@ -42,5 +42,7 @@ double dbu_block_weeks(const struct db_block *b);
 int dbu_block_audit(const struct sd_ctx *ctx, const struct db_block *b,
 		    const struct db_program *src, double session_cap, struct sd_program *prog,
 		    struct sd_audit *au, struct sd_err *e);
+/* The library's canonical name of LIFT into buf, or an error suggesting the closest names. */
+int dbu_lift(const struct sd_library *lib, const char *lift, char *buf, size_t n, struct sd_err *e);
 
 #endif

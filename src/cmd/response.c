@@ -11,140 +11,15 @@
 #include "../core/response.h"
 #include "../core/units.h"
 #include "../io/recout.h"
-#include "dbutil.h"
+#include "respdata.h"
 
 extern const struct sd_cmd cmd_response;
-
-#define WINDOW_DAYS 14   /* "near" a block's start or end; common practice, no source */
 
 struct rargs {
 	long long block;        /* 0: all */
 	int window;
 	struct resp_opts ro;
 };
-
-struct row {
-	long long block;
-	char lift[DB_NAME_MAX];
-	const struct db_test *pre, *post;
-	double dose, weeks;
-	struct sd_point pt;
-	struct resp_obs ob;
-	struct resp_fit fit;
-};
-
-struct rows {
-	struct row *v;
-	int n, cap, nblocks;
-};
-
-static long day(const char *date)
-{
-	long d = 0;
-	date_parse(date, &d, NULL);
-	return d;
-}
-
-/* The test of `lift` nearest to `target` within the window; on a tie the one farther outside
- * the block (earlier for the start, later for the end), so the pair spans the whole block. */
-static const struct db_test *nearest(const struct db_test *t, int n, const char *lift,
-				     long target, int window, int later)
-{
-	const struct db_test *best = NULL;
-	long bestd = 0;
-
-	for (int i = 0; i < n; i++) {
-		long d;
-		if (strcmp(t[i].lift, lift))
-			continue;
-		d = labs(day(t[i].date) - target);
-		if (d > window)
-			continue;
-		if (!best || d < bestd || (d == bestd && (later ? strcmp(t[i].date, best->date) > 0
-							     : strcmp(t[i].date, best->date) < 0))) {
-			best = &t[i];
-			bestd = d;
-		}
-	}
-	return best;
-}
-
-/* Weekly fractional sets of the lift's prime movers, averaged over them; -1 without any. */
-static double lift_dose(const struct sd_ctx *ctx, const struct sd_audit *au, const char *lift)
-{
-	int k = lib_find(&ctx->lib, lift), nm = 0;
-	double sum = 0;
-
-	if (k < 0)
-		return -1;
-	for (int m = 0; m < SD_NMUSCLES; m++)
-		if (ctx->lib.ex[k].direct & ((sd_mset)1 << m)) {
-			sum += au->row[m].dose.fractional;
-			nm++;
-		}
-	return nm ? sum / nm : -1;
-}
-
-static int add_row(struct rows *rs, const struct row *r, struct sd_err *e)
-{
-	if (rs->n == rs->cap) {
-		int ncap = rs->cap ? 2 * rs->cap : 16;
-		struct row *nv = realloc(rs->v, (size_t)ncap * sizeof *nv);
-		if (!nv)
-			return sd_fail(e, "out of memory");
-		rs->v = nv;
-		rs->cap = ncap;
-	}
-	rs->v[rs->n++] = *r;
-	return 0;
-}
-
-/* All observations of one completed block. */
-static int block_rows(struct sd_ctx *ctx, const struct rargs *ra, const struct db_block *b,
-		      const struct db_test *t, int nt, struct rows *rs, struct sd_err *e)
-{
-	struct db_program p = { 0 };
-	struct sd_program prog = { 0 };
-	struct sd_audit au = { 0 };
-	struct sd_covars cov = { dbu_block_weeks(b), b->trained };
-	long s = day(b->start), f = day(b->end);
-	int rc = -1, before = rs->n;
-
-	if (db_program_get_id(ctx->db, b->program_id, &p, e) ||
-	    dbu_block_audit(ctx, b, &p, SD_SESSION_CAP, &prog, &au, e))
-		goto done;
-	for (int i = 0; i < nt; i++) {
-		struct row r;
-		if (i > 0 && !strcmp(t[i].lift, t[i - 1].lift))
-			continue;   /* one row per lift: the list is ordered by lift */
-		memset(&r, 0, sizeof r);
-		r.pre = nearest(t, nt, t[i].lift, s, ra->window, 0);
-		r.post = nearest(t, nt, t[i].lift, f, ra->window, 1);
-		if (!r.pre || !r.post || strcmp(r.pre->date, r.post->date) >= 0)
-			continue;
-		r.dose = lift_dose(ctx, &au, t[i].lift);
-		if (r.dose < 0)
-			continue;   /* a lift no longer in the library, or with no prime mover */
-		r.block = b->id;
-		r.weeks = cov.weeks;
-		snprintf(r.lift, sizeof r.lift, "%s", t[i].lift);
-		curve_eval(&ctx->profile, &cov, r.dose, ra->ro.level, &r.pt);
-		r.ob.obs = log(r.post->e1rm_kg / r.pre->e1rm_kg);
-		r.ob.yhat = r.pt.y;
-		r.ob.sp = r.pt.sp;
-		resp_observe(&r.ob, &ra->ro, &r.fit);
-		if (add_row(rs, &r, e))
-			goto done;
-	}
-	if (rs->n > before)
-		rs->nblocks++;
-	rc = 0;
-done:
-	audit_free(&au);
-	prog_free(&prog);
-	db_program_free(&p);
-	return rc;
-}
 
 static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, struct sd_err *e)
 {
@@ -159,7 +34,7 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 	int c;
 
 	ra->block = 0;
-	ra->window = WINDOW_DAYS;
+	ra->window = RESPD_WINDOW_DAYS;
 	ra->ro.test_sd = RESP_TEST_SD;
 	ra->ro.prior_sd = RESP_PRIOR_SD;
 	ra->ro.level = ctx->opt.level;
@@ -194,7 +69,7 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 }
 
 /* Table cells are rounded for reading; CSV and JSON keep enough digits to recompute. */
-static void set_row(struct sd_rec *r, const struct row *w, int lb, int precise)
+static void set_row(struct sd_rec *r, const struct resp_row *w, int lb, int precise)
 {
 	const char *pct = precise ? "%.4f" : "%.1f";
 	int c = 0;
@@ -218,7 +93,7 @@ static const char *const heads[] = { "block", "<lift", "<pre", "<post", "e1rm_pr
 	"change%", "lnRR", "dose", "predicted%", "pi_low%", "pi_high%", "percentile" };
 
 static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const struct rargs *ra,
-			const struct rows *rs, const struct sd_rec *r, const struct resp_personal *pr,
+			const struct resp_data *rs, const struct sd_rec *r, const struct resp_personal *pr,
 			int lb)
 {
 	int lvl = (int)lround(ra->ro.level * 100);
@@ -252,7 +127,7 @@ static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const st
 }
 
 static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const struct rargs *ra,
-		      const struct rows *rs, const struct sd_rec *r, const struct resp_personal *pr,
+		      const struct resp_data *rs, const struct sd_rec *r, const struct resp_personal *pr,
 		      struct sd_err *e)
 {
 	char *name = rec_json_string(a->name), *prof = rec_json_string(ctx->profile.name);
@@ -282,7 +157,7 @@ static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const stru
 	return 0;
 }
 
-static int print_csv(struct sd_ctx *ctx, const struct rargs *ra, const struct rows *rs,
+static int print_csv(struct sd_ctx *ctx, const struct rargs *ra, const struct resp_data *rs,
 		     const struct sd_rec *r, const struct resp_personal *pr)
 {
 	rec_print(r, ctx->out);
@@ -299,52 +174,20 @@ static int print_csv(struct sd_ctx *ctx, const struct rargs *ra, const struct ro
 static int exec_response(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	struct rargs ra;
-	struct db_athlete a;
-	struct db_block *b = NULL;
-	struct db_test *t = NULL;
-	struct rows rs = { 0 };
-	struct resp_obs *obs = NULL;
-	struct resp_personal pr;
+	struct resp_data rs;
 	struct sd_rec *r = NULL;
-	int nb = 0, nt = 0, rc = -1, lb, found = 0;
+	int rc = -1, lb;
 
 	if (parse(ctx, argc, argv, &ra, e))
 		return -1;
-	if (db_athlete_get(ctx->db, argv[optind], &a, e))
+	if (respd_load(ctx, argv[optind], ra.block, ra.window, &ra.ro, &rs, e))
 		return -1;
-	if (db_block_list(ctx->db, a.id, &b, &nb, e) ||
-	    db_test_list(ctx->db, a.id, NULL, &t, &nt, e))
-		goto done;
-	for (int i = 0; i < nb; i++) {
-		if (ra.block && b[i].id == ra.block) {
-			found = 1;
-			if (!b[i].end[0]) {
-				sd_fail(e, "block %lld is still open (end it with 'setdose block end %lld')",
-					ra.block, ra.block);
-				goto done;
-			}
-		}
-		if (b[i].end[0] && block_rows(ctx, &ra, &b[i], t, nt, &rs, e))
-			goto done;
-	}
-	if (ra.block && !found) {
-		sd_fail(e, "block %lld is not one of athlete '%s''s blocks", ra.block, a.name);
-		goto done;
-	}
-	/* The personal estimate uses every completed block; --block only limits the rows shown. */
-	if (rs.n && !(obs = malloc((size_t)rs.n * sizeof *obs))) {
-		sd_fail(e, "out of memory");
-		goto done;
-	}
-	for (int i = 0; i < rs.n; i++)
-		obs[i] = rs.v[i].ob;
-	if (resp_personal(obs, rs.n, &ra.ro, &pr, e))
-		goto done;
-	lb = dbu_lb(ctx, &a);
+	lb = dbu_lb(ctx, &rs.athlete);
 	if (!(r = rec_new(13, heads, ctx->opt.format))) {
 		sd_fail(e, "out of memory");
 		goto done;
 	}
+	/* The personal estimate uses every completed block; --block only limits the rows shown. */
 	for (int i = 0; i < rs.n; i++) {
 		if (ra.block && rs.v[i].block != ra.block)
 			continue;
@@ -355,19 +198,16 @@ static int exec_response(struct sd_ctx *ctx, int argc, char **argv, struct sd_er
 		set_row(r, &rs.v[i], lb, ctx->opt.format != SD_FMT_TABLE);
 	}
 	if (ctx->opt.format == SD_FMT_JSON)
-		rc = print_json(ctx, &a, &ra, &rs, r, &pr, e);
+		rc = print_json(ctx, &rs.athlete, &ra, &rs, r, &rs.personal, e);
 	else if (ctx->opt.format == SD_FMT_CSV)
-		rc = print_csv(ctx, &ra, &rs, r, &pr);
+		rc = print_csv(ctx, &ra, &rs, r, &rs.personal);
 	else {
-		print_table(ctx, &a, &ra, &rs, r, &pr, lb);
+		print_table(ctx, &rs.athlete, &ra, &rs, r, &rs.personal, lb);
 		rc = 0;
 	}
 done:
 	rec_free(r);
-	free(obs);
-	free(rs.v);
-	free(t);
-	free(b);
+	respd_free(&rs);
 	return rc;
 }
 

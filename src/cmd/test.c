@@ -16,24 +16,6 @@ static int usage(struct sd_err *e)
 	return sd_usage(e, "usage: setdose %s", cmd_test.usage);
 }
 
-/* The library's name for LIFT, or an error suggesting the closest names. */
-static int find_lift(const struct sd_library *lib, const char *lift, char *buf, size_t n,
-		     struct sd_err *e)
-{
-	int k = lib_find(lib, lift), near[3], nn;
-	char hint[200] = "";
-
-	if (k >= 0) {
-		snprintf(buf, n, "%s", lib->ex[k].name);
-		return 0;
-	}
-	nn = lib_suggest(lib, lift, near, 3);
-	for (int i = 0; i < nn; i++)
-		snprintf(hint + strlen(hint), sizeof hint - strlen(hint), "%s'%s'",
-			 i ? ", " : " (did you mean ", lib->ex[near[i]].name);
-	return sd_fail(e, "unknown lift '%s'%s%s", lift, hint, nn ? ")" : "");
-}
-
 static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	static const struct option longopts[] = {
@@ -71,7 +53,7 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		return -1;
 	if (!have_date && dbu_today(t.date, e))
 		return -1;
-	if (find_lift(&ctx->lib, argv[optind + 1], t.lift, sizeof t.lift, e))
+	if (dbu_lift(&ctx->lib, argv[optind + 1], t.lift, sizeof t.lift, e))
 		return -1;
 	if (db_begin(ctx->db, e) || db_athlete_get(ctx->db, argv[optind], &a, e))
 		return -1;
@@ -107,7 +89,7 @@ static int do_list(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		return usage(e);
 	if (db_athlete_get(ctx->db, argv[1], &a, e))
 		return -1;
-	if (argc == 3 && find_lift(&ctx->lib, argv[2], lift, sizeof lift, e))
+	if (argc == 3 && dbu_lift(&ctx->lib, argv[2], lift, sizeof lift, e))
 		return -1;
 	if (db_test_list(ctx->db, a.id, argc == 3 ? lift : NULL, &v, &n, e))
 		return -1;

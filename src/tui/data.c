@@ -1,11 +1,10 @@
 /* What the views show, read from the store and computed by the same functions the commands
- * use: audit_run for doses, the response command itself for the personal response. */
+ * use: audit_run for doses, cmd/respdata.c (as `setdose response`) for the personal response. */
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
-#include "../cmd/dbutil.h"
-#include "../io/csv.h"
+#include "../cmd/respdata.h"
 #include "../io/program_io.h"
 #include "app.h"
 
@@ -137,102 +136,46 @@ void tui_resp_free(struct tui_resp *r)
 	memset(r, 0, sizeof *r);
 }
 
-static double num(char **f, int n, int i)
-{
-	return i < n ? strtod(f[i], NULL) : 0;
-}
-
-/* Reads the CSV the response command prints: the observations, a blank line, then the
- * personal estimate under a header starting "observations". */
-static int parse_response(struct tui_resp *r, const char *text, size_t len, struct sd_err *e)
-{
-	struct sd_csv *c = csv_open_mem("response", text, len, e);
-	char **f;
-	int n, rc, state = 0, ret = -1;
-
-	if (!c)
-		return -1;
-	while ((rc = csv_next(c, &f, &n, e)) == 1) {
-		if (state == 0) {
-			state = 1;   /* the observations' header */
-			continue;
-		}
-		if (state == 1 && n > 0 && !strcmp(f[0], "observations")) {
-			state = 2;
-			continue;
-		}
-		if (state == 1 && n >= 13) {
-			struct tui_obs *o = realloc(r->obs, (size_t)(r->nobs + 1) * sizeof *o);
-			if (!o) {
-				sd_fail(e, "out of memory");
-				goto done;
-			}
-			r->obs = o;
-			o = &r->obs[r->nobs++];
-			o->block = strtoll(f[0], NULL, 10);
-			snprintf(o->lift, sizeof o->lift, "%s", f[1]);
-			o->change = num(f, n, 6);
-			o->dose = num(f, n, 8);
-			o->predicted = num(f, n, 9);
-			o->lo = num(f, n, 10);
-			o->hi = num(f, n, 11);
-			o->pctile = num(f, n, 12);
-		} else if (state == 2 && n >= 12) {
-			r->n = (int)num(f, n, 0);
-			r->nblocks = (int)num(f, n, 1);
-			r->pct = num(f, n, 6);
-			r->lo = num(f, n, 7);
-			r->hi = num(f, n, 8);
-			r->weight = num(f, n, 11);
-			r->ok = 1;
-			state = 3;
-		}
-	}
-	if (rc < 0)
-		goto done;
-	if (!r->ok) {
-		sd_fail(e, "the response command gave no personal estimate");
-		goto done;
-	}
-	ret = 0;
-done:
-	csv_close(c);
-	return ret;
-}
-
-/* Runs the response command itself, in CSV, into memory: the page shows exactly the numbers
- * `setdose response ATHLETE` prints. */
+/* The same computation as `setdose response ATHLETE` (cmd/respdata.c), with its defaults. */
 static void load_response(struct tui_app *a)
 {
-	struct sd_ctx c = *a->ctx;
+	struct resp_opts ro = { RESP_TEST_SD, RESP_PRIOR_SD, a->ctx->opt.level };
+	struct resp_data d;
 	struct sd_err e;
-	const struct sd_cmd *cmd;
-	char *buf = NULL, name[DB_NAME_MAX];
-	size_t len = 0;
-	char *argv[] = { "response", name, NULL };
-	FILE *f;
-	int rc;
+	struct tui_resp *r = &a->resp;
 
-	tui_resp_free(&a->resp);
+	tui_resp_free(r);
 	sd_err_clear(&e);
-	snprintf(name, sizeof name, "%s", a->cur.name);
-	if (!(cmd = cmd_find("response", &e)) || !(f = open_memstream(&buf, &len))) {
-		snprintf(a->resp.err, sizeof a->resp.err, "%s",
-			 e.msg[0] ? e.msg : "cannot run the response computation");
+	if (respd_load(a->ctx, a->cur.name, 0, RESPD_WINDOW_DAYS, &ro, &d, &e)) {
+		snprintf(r->err, sizeof r->err, "%s", e.msg);
 		return;
 	}
-	c.out = f;
-	c.opt.format = SD_FMT_CSV;
-	rc = cmd->exec(&c, 2, argv, &e);
-	if (fclose(f))
-		rc = sd_fail(&e, "cannot read the response output");
-	if (!rc)
-		rc = parse_response(&a->resp, buf, len, &e);
-	if (rc) {
-		tui_resp_free(&a->resp);
-		snprintf(a->resp.err, sizeof a->resp.err, "%s", e.msg);
+	if (d.n && !(r->obs = calloc((size_t)d.n, sizeof *r->obs))) {
+		snprintf(r->err, sizeof r->err, "out of memory");
+		respd_free(&d);
+		return;
 	}
-	free(buf);
+	for (int i = 0; i < d.n; i++) {
+		const struct resp_row *w = &d.v[i];
+		struct tui_obs *o = &r->obs[i];
+		o->block = w->block;
+		snprintf(o->lift, sizeof o->lift, "%s", w->lift);
+		o->change = curve_pct(w->ob.obs);
+		o->dose = w->dose;
+		o->predicted = curve_pct(w->pt.y);
+		o->lo = curve_pct(w->fit.lo);
+		o->hi = curve_pct(w->fit.hi);
+		o->pctile = w->fit.pctile;
+	}
+	r->nobs = d.n;
+	r->n = d.personal.n;
+	r->nblocks = d.nblocks;
+	r->pct = curve_pct(d.personal.mean);
+	r->lo = curve_pct(d.personal.lo);
+	r->hi = curve_pct(d.personal.hi);
+	r->weight = d.personal.weight;
+	r->ok = 1;
+	respd_free(&d);
 }
 
 int tui_athlete_row(const struct tui_app *a, int i, int *idx)

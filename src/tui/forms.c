@@ -215,26 +215,6 @@ static int save_block(struct tui_app *a, struct sd_err *e)
 	return bad;
 }
 
-/* The library's name for a lift, or an error suggesting the closest names. */
-static int find_lift(const struct sd_library *lib, const char *lift, char *buf, size_t n,
-		     struct sd_err *e)
-{
-	int k = lib_find(lib, lift), near[3], nn;
-	char hint[200] = "";
-
-	if (!lift[0])
-		return sd_fail(e, "the lift is empty");
-	if (k >= 0) {
-		snprintf(buf, n, "%s", lib->ex[k].name);
-		return 0;
-	}
-	nn = lib_suggest(lib, lift, near, 3);
-	for (int i = 0; i < nn; i++)
-		snprintf(hint + strlen(hint), sizeof hint - strlen(hint), "%s'%s'",
-			 i ? ", " : " (did you mean ", lib->ex[near[i]].name);
-	return sd_fail(e, "unknown lift '%s'%s%s", lift, hint, nn ? ")" : "");
-}
-
 /* Reads the test form into t; returns -1 when it is complete and valid, else the field at
  * fault with e filled. */
 static int read_test(struct tui_app *a, struct db_test *t, int *warn, struct sd_err *e)
@@ -244,7 +224,7 @@ static int read_test(struct tui_app *a, struct db_test *t, int *warn, struct sd_
 	long long reps;
 
 	memset(t, 0, sizeof *t);
-	if (find_lift(&a->ctx->lib, tui_form_value(f, FT_LIFT), t->lift, sizeof t->lift, e))
+	if (dbu_lift(&a->ctx->lib, tui_form_value(f, FT_LIFT), t->lift, sizeof t->lift, e))
 		return FT_LIFT;
 	if (dbu_date("date", tui_form_value(f, FT_DATE), t->date, e))
 		return FT_DATE;

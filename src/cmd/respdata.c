@@ -1,0 +1,169 @@
+#include "respdata.h"
+
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+
+static long day(const char *date)
+{
+	long d = 0;
+	date_parse(date, &d, NULL);
+	return d;
+}
+
+/* The test of `lift` nearest to `target` within the window; on a tie the one farther outside
+ * the block (earlier for the start, later for the end), so the pair spans the whole block. */
+static const struct db_test *nearest(const struct db_test *t, int n, const char *lift,
+				     long target, int window, int later)
+{
+	const struct db_test *best = NULL;
+	long bestd = 0;
+
+	for (int i = 0; i < n; i++) {
+		long d;
+		if (strcmp(t[i].lift, lift))
+			continue;
+		d = labs(day(t[i].date) - target);
+		if (d > window)
+			continue;
+		if (!best || d < bestd || (d == bestd && (later ? strcmp(t[i].date, best->date) > 0
+							     : strcmp(t[i].date, best->date) < 0))) {
+			best = &t[i];
+			bestd = d;
+		}
+	}
+	return best;
+}
+
+/* Weekly fractional sets of the lift's prime movers, averaged over them; -1 without any. */
+static double lift_dose(const struct sd_ctx *ctx, const struct sd_audit *au, const char *lift)
+{
+	int k = lib_find(&ctx->lib, lift), nm = 0;
+	double sum = 0;
+
+	if (k < 0)
+		return -1;
+	for (int m = 0; m < SD_NMUSCLES; m++)
+		if (ctx->lib.ex[k].direct & ((sd_mset)1 << m)) {
+			sum += au->row[m].dose.fractional;
+			nm++;
+		}
+	return nm ? sum / nm : -1;
+}
+
+static int add_row(struct resp_data *rs, const struct resp_row *r, struct sd_err *e)
+{
+	if (rs->n == rs->cap) {
+		int ncap = rs->cap ? 2 * rs->cap : 16;
+		struct resp_row *nv = realloc(rs->v, (size_t)ncap * sizeof *nv);
+		if (!nv)
+			return sd_fail(e, "out of memory");
+		rs->v = nv;
+		rs->cap = ncap;
+	}
+	rs->v[rs->n++] = *r;
+	return 0;
+}
+
+/* All observations of one completed block. */
+static int block_rows(struct sd_ctx *ctx, int window, const struct resp_opts *ro,
+		      const struct db_block *b, struct resp_data *rs, struct sd_err *e)
+{
+	struct db_program p = { 0 };
+	struct sd_program prog = { 0 };
+	struct sd_audit au = { 0 };
+	struct sd_covars cov = { dbu_block_weeks(b), b->trained };
+	long s = day(b->start), f = day(b->end);
+	int rc = -1, before = rs->n;
+
+	if (db_program_get_id(ctx->db, b->program_id, &p, e) ||
+	    dbu_block_audit(ctx, b, &p, SD_SESSION_CAP, &prog, &au, e))
+		goto done;
+	const struct db_test *t = rs->t;
+	int nt = rs->nt;
+
+	for (int i = 0; i < nt; i++) {
+		struct resp_row r;
+		if (i > 0 && !strcmp(t[i].lift, t[i - 1].lift))
+			continue;   /* one row per lift: the list is ordered by lift */
+		memset(&r, 0, sizeof r);
+		r.pre = nearest(t, nt, t[i].lift, s, window, 0);
+		r.post = nearest(t, nt, t[i].lift, f, window, 1);
+		if (!r.pre || !r.post || strcmp(r.pre->date, r.post->date) >= 0)
+			continue;
+		r.dose = lift_dose(ctx, &au, t[i].lift);
+		if (r.dose < 0)
+			continue;   /* a lift no longer in the library, or with no prime mover */
+		r.block = b->id;
+		r.weeks = cov.weeks;
+		snprintf(r.lift, sizeof r.lift, "%s", t[i].lift);
+		curve_eval(&ctx->profile, &cov, r.dose, ro->level, &r.pt);
+		r.ob.obs = log(r.post->e1rm_kg / r.pre->e1rm_kg);
+		r.ob.yhat = r.pt.y;
+		r.ob.sp = r.pt.sp;
+		resp_observe(&r.ob, ro, &r.fit);
+		if (add_row(rs, &r, e))
+			goto done;
+	}
+	if (rs->n > before)
+		rs->nblocks++;
+	rc = 0;
+done:
+	audit_free(&au);
+	prog_free(&prog);
+	db_program_free(&p);
+	return rc;
+}
+
+
+int respd_load(struct sd_ctx *ctx, const char *athlete, long long only_block, int window,
+	       const struct resp_opts *ro, struct resp_data *d, struct sd_err *e)
+{
+	struct resp_obs *obs = NULL;
+	int found = 0, rc = -1;
+
+	memset(d, 0, sizeof *d);
+	if (db_athlete_get(ctx->db, athlete, &d->athlete, e))
+		return -1;
+	if (db_block_list(ctx->db, d->athlete.id, &d->b, &d->nb, e) ||
+	    db_test_list(ctx->db, d->athlete.id, NULL, &d->t, &d->nt, e))
+		goto done;
+	for (int i = 0; i < d->nb; i++) {
+		const struct db_block *b = &d->b[i];
+		if (only_block && b->id == only_block) {
+			found = 1;
+			if (!b->end[0]) {
+				sd_fail(e, "block %lld is still open (end it with 'setdose block end %lld')",
+					only_block, only_block);
+				goto done;
+			}
+		}
+		if (b->end[0] && block_rows(ctx, window, ro, b, d, e))
+			goto done;
+	}
+	if (only_block && !found) {
+		sd_fail(e, "block %lld is not one of athlete '%s''s blocks", only_block, d->athlete.name);
+		goto done;
+	}
+	if (d->n && !(obs = malloc((size_t)d->n * sizeof *obs))) {
+		sd_fail(e, "out of memory");
+		goto done;
+	}
+	for (int i = 0; i < d->n; i++)
+		obs[i] = d->v[i].ob;
+	rc = resp_personal(obs, d->n, ro, &d->personal, e);
+done:
+	free(obs);
+	if (rc)
+		respd_free(d);
+	return rc;
+}
+
+void respd_free(struct resp_data *d)
+{
+	free(d->v);
+	free(d->t);
+	free(d->b);
+	memset(d, 0, sizeof *d);
+}

@@ -1,0 +1,44 @@
+/* An athlete's responses: pairs each completed block with the tests of each lift nearest its
+ * start and its end, predicts the change from the curve for the dose of the lift's prime
+ * movers, and estimates the personal response (core/response.h has the model). Shared by the
+ * `response` command and the full-screen interface, so both show the same numbers.
+ *
+ * Ownership: respd_load fills a struct resp_data that owns its arrays; respd_free releases
+ * them. Rows point into the data's own test list. */
+#ifndef SD_RESPDATA_H
+#define SD_RESPDATA_H
+
+#include "../core/response.h"
+#include "dbutil.h"
+
+#define RESPD_WINDOW_DAYS 14   /* "near" a block's start or end; common practice, no source */
+
+struct resp_row {
+	long long block;
+	char lift[DB_NAME_MAX];
+	const struct db_test *pre, *post;
+	double dose, weeks;
+	struct sd_point pt;          /* the curve at the lift's dose for this block */
+	struct resp_obs ob;
+	struct resp_fit fit;
+};
+
+struct resp_data {
+	struct db_athlete athlete;
+	struct db_block *b;
+	int nb;
+	struct db_test *t;
+	int nt;
+	struct resp_row *v;          /* observations of every completed block */
+	int n, cap, nblocks;         /* nblocks: completed blocks with at least one observation */
+	struct resp_personal personal;
+};
+
+/* Loads the athlete's blocks and tests and computes every observation and the personal
+ * estimate. With only_block > 0, fails unless that block is the athlete's and completed (the
+ * estimate still uses every completed block). */
+int respd_load(struct sd_ctx *ctx, const char *athlete, long long only_block, int window,
+	       const struct resp_opts *ro, struct resp_data *d, struct sd_err *e);
+void respd_free(struct resp_data *d);
+
+#endif
