@@ -77,6 +77,12 @@ static int width(const char *s)
 {
 	mbstate_t st;
 	int w = 0;
+	const char *p = s;
+
+	while (*p && !(*p & 0x80))   /* plain ASCII, the common case: one column a byte */
+		p++;
+	if (!*p)
+		return (int)(p - s);
 	memset(&st, 0, sizeof st);
 	while (*s) {
 		wchar_t wc;
