@@ -91,7 +91,7 @@ static int do_edit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	return 0;
 }
 
-static int do_list(struct sd_ctx *ctx, int argc, struct sd_err *e)
+static int do_list(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	static const char *const heads[] = { "<name", "<status", "<units", "blocks", "tests",
 		"<created", "<notes" };
@@ -99,6 +99,7 @@ static int do_list(struct sd_ctx *ctx, int argc, struct sd_err *e)
 	struct sd_rec *r = NULL;
 	int n = 0, rc = -1;
 
+	(void)argv;   /* takes no arguments; the signature is the subcommand table's */
 	if (argc != 1)
 		return usage(e);
 	if (db_athlete_list(ctx->db, &v, &n, e))
@@ -243,21 +244,18 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	return 0;
 }
 
+static const struct dbu_sub subs[] = {
+	{ "add", do_add },
+	{ "list", do_list },
+	{ "show", do_show },
+	{ "edit", do_edit },
+	{ "rm", do_rm },
+	{ NULL, NULL },
+};
+
 static int exec_athlete(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	const char *sub = argc > 1 ? argv[1] : "";
-
-	if (!strcmp(sub, "add"))
-		return do_add(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "list"))
-		return do_list(ctx, argc - 1, e);
-	if (!strcmp(sub, "show"))
-		return do_show(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "edit"))
-		return do_edit(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "rm"))
-		return do_rm(ctx, argc - 1, argv + 1, e);
-	return usage(e);
+	return dbu_subcommand(ctx, subs, &cmd_athlete, argc, argv, e);
 }
 
 const struct sd_cmd cmd_athlete = {

@@ -198,19 +198,17 @@ static int do_end(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	return 0;
 }
 
+static const struct dbu_sub subs[] = {
+	{ "add", do_add },
+	{ "list", do_list },
+	{ "show", do_show },
+	{ "end", do_end },
+	{ NULL, NULL },
+};
+
 static int exec_block(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	const char *sub = argc > 1 ? argv[1] : "";
-
-	if (!strcmp(sub, "add"))
-		return do_add(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "list"))
-		return do_list(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "show"))
-		return do_show(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "end"))
-		return do_end(ctx, argc - 1, argv + 1, e);
-	return usage(e);
+	return dbu_subcommand(ctx, subs, &cmd_block, argc, argv, e);
 }
 
 const struct sd_cmd cmd_block = {

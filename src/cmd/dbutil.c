@@ -193,3 +193,14 @@ int dbu_lift(const struct sd_library *lib, const char *lift, char *buf, size_t n
 			 i ? ", " : " (did you mean ", lib->ex[near[i]].name);
 	return sd_fail(e, "unknown lift '%s'%s%s", lift, hint, nn ? ")" : "");
 }
+
+int dbu_subcommand(struct sd_ctx *ctx, const struct dbu_sub *subs, const struct sd_cmd *cmd,
+		   int argc, char **argv, struct sd_err *e)
+{
+	const char *sub = argc > 1 ? argv[1] : "";
+
+	for (; subs->name; subs++)
+		if (!strcmp(sub, subs->name))
+			return subs->fn(ctx, argc - 1, argv + 1, e);
+	return sd_usage(e, "usage: setdose %s", cmd->usage);
+}

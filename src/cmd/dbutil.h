@@ -29,6 +29,16 @@ int dbu_lb(const struct sd_ctx *ctx, const struct db_athlete *a);
 /* The database path main.c would use: --db, SETDOSE_DB, else the default. */
 int dbu_path(const struct sd_ctx *ctx, char *buf, size_t n, struct sd_err *e);
 
+/* One subcommand: its name and the function given argv from the subcommand's name on. */
+struct dbu_sub {
+	const char *name;
+	int (*fn)(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e);
+};
+/* Runs the subcommand named by argv[1] from the NULL-terminated table, or fails with the
+ * command's usage. */
+int dbu_subcommand(struct sd_ctx *ctx, const struct dbu_sub *subs, const struct sd_cmd *cmd,
+		   int argc, char **argv, struct sd_err *e);
+
 /* The usage error for an unknown option (call with getopt's optind as left after '?'). */
 int dbu_badopt(const struct sd_cmd *cmd, int argc, char **argv, struct sd_err *e);
 /* Refuses a negative number among the arguments before getopt could take it for an option. */

@@ -106,13 +106,14 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	return 0;
 }
 
-static int do_list(struct sd_ctx *ctx, int argc, struct sd_err *e)
+static int do_list(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	static const char *const heads[] = { "<name", "<format", "bytes", "blocks", "<created" };
 	struct db_program *v = NULL;
 	struct sd_rec *r = NULL;
 	int n = 0, rc = -1;
 
+	(void)argv;   /* takes no arguments; the signature is the subcommand table's */
 	if (argc != 1)
 		return usage(e);
 	if (db_program_list(ctx->db, &v, &n, e))
@@ -186,19 +187,17 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	return rc;
 }
 
+static const struct dbu_sub subs[] = {
+	{ "add", do_add },
+	{ "list", do_list },
+	{ "show", do_show },
+	{ "rm", do_rm },
+	{ NULL, NULL },
+};
+
 static int exec_program(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	const char *sub = argc > 1 ? argv[1] : "";
-
-	if (!strcmp(sub, "add"))
-		return do_add(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "list"))
-		return do_list(ctx, argc - 1, e);
-	if (!strcmp(sub, "show"))
-		return do_show(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "rm"))
-		return do_rm(ctx, argc - 1, argv + 1, e);
-	return usage(e);
+	return dbu_subcommand(ctx, subs, &cmd_program, argc, argv, e);
 }
 
 const struct sd_cmd cmd_program = {

@@ -123,15 +123,15 @@ done:
 	return rc;
 }
 
+static const struct dbu_sub subs[] = {
+	{ "add", do_add },
+	{ "list", do_list },
+	{ NULL, NULL },
+};
+
 static int exec_test(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	const char *sub = argc > 1 ? argv[1] : "";
-
-	if (!strcmp(sub, "add"))
-		return do_add(ctx, argc - 1, argv + 1, e);
-	if (!strcmp(sub, "list"))
-		return do_list(ctx, argc - 1, argv + 1, e);
-	return usage(e);
+	return dbu_subcommand(ctx, subs, &cmd_test, argc, argv, e);
 }
 
 const struct sd_cmd cmd_test = {
