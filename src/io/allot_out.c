@@ -6,6 +6,8 @@
 
 #include <cjson/cJSON.h>
 
+#include "jsonout.h"
+
 #include "audit_out.h"
 #include "table.h"
 
@@ -169,12 +171,6 @@ int allot_out_csv(FILE *f, const struct allot_view *v)
 	return 0;
 }
 
-static void num(cJSON *o, const char *k, double x, int digits)
-{
-	double s = pow(10, digits);
-	cJSON_AddNumberToObject(o, k, round(x * s) / s);
-}
-
 static cJSON *summary_json(const struct allot_view *v)
 {
 	const struct allot_result *r = v->res;
@@ -188,23 +184,23 @@ static cJSON *summary_json(const struct allot_view *v)
 		cJSON_AddNumberToObject(o, "per_session_limit", v->per_session);
 	else
 		cJSON_AddNullToObject(o, "per_session_limit");
-	num(o, "session_cap", v->cap, 4);
+	json_num(o, "session_cap", v->cap, 4);
 	cJSON_AddStringToObject(o, "status", v->audit->cov.trained >= 0.5 ? "trained" : "untrained");
-	num(o, "weeks", v->audit->cov.weeks, 2);
+	json_num(o, "weeks", v->audit->cov.weeks, 2);
 	cJSON_AddStringToObject(o, "profile", v->prof->name);
 	cJSON_AddStringToObject(o, "method", "branch-and-bound");
 	cJSON_AddBoolToObject(o, "proved", r->proved);
 	cJSON_AddBoolToObject(o, "proved_optimal", r->proved && exact(r));
-	num(o, "tolerance", v->prob->tolerance, 8);
+	json_num(o, "tolerance", v->prob->tolerance, 8);
 	cJSON_AddNumberToObject(o, "nodes", (double)r->nodes);
 	cJSON_AddNumberToObject(o, "distinct_exercises", r->distinct);
-	num(o, "objective", r->value, 8);
-	num(o, "upper_bound", r->bound, 8);
-	num(o, "relaxation_bound", r->relaxation, 8);
-	num(o, "gap", r->gap, 8);
-	num(o, "last_set_gain", r->last_set, 8);
-	num(o, "next_set_gain", r->next_set, 8);
-	num(o, "swc_lnrr", v->prof->swc, 6);
+	json_num(o, "objective", r->value, 8);
+	json_num(o, "upper_bound", r->bound, 8);
+	json_num(o, "relaxation_bound", r->relaxation, 8);
+	json_num(o, "gap", r->gap, 8);
+	json_num(o, "last_set_gain", r->last_set, 8);
+	json_num(o, "next_set_gain", r->next_set, 8);
+	json_num(o, "swc_lnrr", v->prof->swc, 6);
 	return o;
 }
 
@@ -236,17 +232,17 @@ static cJSON *muscles_json(const struct allot_view *v)
 		if (!o)
 			return arr;
 		cJSON_AddStringToObject(o, "muscle", muscle_name(m));
-		num(o, "priority", v->prob->weight[m], 6);
-		num(o, "min", v->prob->min[m], 4);
-		num(o, "max", v->prob->max[m], 4);
-		num(o, "fractional", r->dose.fractional, 2);
-		num(o, "max_per_session", r->dose.max_session, 2);
+		json_num(o, "priority", v->prob->weight[m], 6);
+		json_num(o, "min", v->prob->min[m], 4);
+		json_num(o, "max", v->prob->max[m], 4);
+		json_num(o, "fractional", r->dose.fractional, 2);
+		json_num(o, "max_per_session", r->dose.max_session, 2);
 		cJSON_AddNumberToObject(o, "sessions", r->dose.sessions);
-		num(o, "lnrr", r->pt.y, 6);
-		num(o, "gain_pct", pct(r->pt.y), 3);
-		num(o, "ci_low", pct(r->pt.ci_lo), 3);
-		num(o, "ci_high", pct(r->pt.ci_hi), 3);
-		num(o, "marginal_pct", r->marg.pct, 4);
+		json_num(o, "lnrr", r->pt.y, 6);
+		json_num(o, "gain_pct", pct(r->pt.y), 3);
+		json_num(o, "ci_low", pct(r->pt.ci_lo), 3);
+		json_num(o, "ci_high", pct(r->pt.ci_hi), 3);
+		json_num(o, "marginal_pct", r->marg.pct, 4);
 		cJSON_AddStringToObject(o, "zone", zone_name(r->zone));
 		cJSON_AddItemToArray(arr, o);
 	}

@@ -6,6 +6,8 @@
 
 #include <cjson/cJSON.h>
 
+#include "jsonout.h"
+
 #include "../core/curve.h"
 
 const char aout_caution[] =
@@ -122,13 +124,6 @@ void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
 	}
 }
 
-/* Rounded so that JSON output is stable across platforms' last-digit noise. */
-static cJSON *num(cJSON *o, const char *k, double v, int digits)
-{
-	double s = pow(10, digits);
-	return cJSON_AddNumberToObject(o, k, round(v * s) / s);
-}
-
 static cJSON *muscle_json(const struct sd_audit *a, int m)
 {
 	const struct sd_audit_row *r = &a->row[m];
@@ -136,22 +131,22 @@ static cJSON *muscle_json(const struct sd_audit *a, int m)
 	if (!o)
 		return NULL;
 	cJSON_AddStringToObject(o, "muscle", muscle_name(m));
-	num(o, "direct", r->dose.direct, 2);
-	num(o, "indirect", r->dose.indirect, 2);
-	num(o, "fractional", r->dose.fractional, 2);
-	num(o, "max_per_session", r->dose.max_session, 2);
+	json_num(o, "direct", r->dose.direct, 2);
+	json_num(o, "indirect", r->dose.indirect, 2);
+	json_num(o, "fractional", r->dose.fractional, 2);
+	json_num(o, "max_per_session", r->dose.max_session, 2);
 	cJSON_AddNumberToObject(o, "sessions", r->dose.sessions);
-	num(o, "not_counted", r->dose.easy, 2);
-	num(o, "lnrr", r->pt.y, 6);
-	num(o, "se", r->pt.se, 6);
-	num(o, "gain_pct", pct(r->pt.y), 3);
-	num(o, "ci_low", pct(r->pt.ci_lo), 3);
-	num(o, "ci_high", pct(r->pt.ci_hi), 3);
-	num(o, "pi_low", pct(r->pt.pi_lo), 3);
-	num(o, "pi_high", pct(r->pt.pi_hi), 3);
-	num(o, "marginal_pct", r->marg.pct, 4);
-	num(o, "marginal_low", r->marg.lo, 4);
-	num(o, "marginal_high", r->marg.hi, 4);
+	json_num(o, "not_counted", r->dose.easy, 2);
+	json_num(o, "lnrr", r->pt.y, 6);
+	json_num(o, "se", r->pt.se, 6);
+	json_num(o, "gain_pct", pct(r->pt.y), 3);
+	json_num(o, "ci_low", pct(r->pt.ci_lo), 3);
+	json_num(o, "ci_high", pct(r->pt.ci_hi), 3);
+	json_num(o, "pi_low", pct(r->pt.pi_lo), 3);
+	json_num(o, "pi_high", pct(r->pt.pi_hi), 3);
+	json_num(o, "marginal_pct", r->marg.pct, 4);
+	json_num(o, "marginal_low", r->marg.lo, 4);
+	json_num(o, "marginal_high", r->marg.hi, 4);
 	cJSON_AddStringToObject(o, "zone", zone_name(r->zone));
 	return o;
 }
@@ -173,12 +168,12 @@ int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
 	cJSON_AddNumberToObject(o, "hard_sets", a->vol.hard_sets);
 	cJSON_AddNumberToObject(o, "sets_not_counted", a->vol.easy_sets);
 	cJSON_AddStringToObject(o, "status", status_name(a));
-	num(o, "weeks", a->cov.weeks, 2);
+	json_num(o, "weeks", a->cov.weeks, 2);
 	cJSON_AddStringToObject(o, "profile", in->prof->name);
-	num(o, "level", a->level, 4);
-	num(o, "swc_pct", pct(in->prof->swc), 4);
-	num(o, "plateau", a->plateau, 2);
-	num(o, "evidence_max", in->prof->dose_max, 2);
+	json_num(o, "level", a->level, 4);
+	json_num(o, "swc_pct", pct(in->prof->swc), 4);
+	json_num(o, "plateau", a->plateau, 2);
+	json_num(o, "evidence_max", in->prof->dose_max, 2);
 	ms = cJSON_AddArrayToObject(o, "muscles");
 	for (int m = 0; ms && m < SD_NMUSCLES; m++)
 		cJSON_AddItemToArray(ms, muscle_json(a, m));

@@ -6,6 +6,8 @@
 
 #include <cjson/cJSON.h>
 
+#include "jsonout.h"
+
 #include "audit_out.h"
 #include "table.h"
 
@@ -187,12 +189,6 @@ int cmp_out_csv(FILE *f, const struct cmp_view *v)
 	return 0;
 }
 
-static void num(cJSON *o, const char *k, double x, int digits)
-{
-	double s = pow(10, digits);
-	cJSON_AddNumberToObject(o, k, round(x * s) / s);
-}
-
 static cJSON *program_json(const struct cmp_view *v, int i)
 {
 	const struct sd_audit *a = &v->audit[i];
@@ -207,7 +203,7 @@ static cJSON *program_json(const struct cmp_view *v, int i)
 	cJSON_AddStringToObject(o, "source", v->label[i]);
 	cJSON_AddNumberToObject(o, "hard_sets", c->hard_sets);
 	cJSON_AddNumberToObject(o, "sessions", c->sessions);
-	num(o, "sets_per_session", c->sets_per_session, 2);
+	json_num(o, "sets_per_session", c->sets_per_session, 2);
 	cJSON_AddNumberToObject(o, "under_plateau", c->under_plateau);
 	cJSON_AddNumberToObject(o, "past_plateau", c->past_plateau);
 	cJSON_AddNumberToObject(o, "beyond_evidence", c->beyond_evidence);
@@ -219,11 +215,11 @@ static cJSON *program_json(const struct cmp_view *v, int i)
 		if (!x)
 			break;
 		cJSON_AddStringToObject(x, "muscle", muscle_name(m));
-		num(x, "fractional", r->dose.fractional, 2);
-		num(x, "max_per_session", r->dose.max_session, 2);
-		num(x, "gain_pct", pct(r->pt.y), 3);
-		num(x, "ci_low", pct(r->pt.ci_lo), 3);
-		num(x, "ci_high", pct(r->pt.ci_hi), 3);
+		json_num(x, "fractional", r->dose.fractional, 2);
+		json_num(x, "max_per_session", r->dose.max_session, 2);
+		json_num(x, "gain_pct", pct(r->pt.y), 3);
+		json_num(x, "ci_low", pct(r->pt.ci_lo), 3);
+		json_num(x, "ci_high", pct(r->pt.ci_hi), 3);
 		cJSON_AddStringToObject(x, "zone", zone_name(r->zone));
 		cJSON_AddItemToArray(ms, x);
 	}
@@ -259,15 +255,15 @@ static cJSON *pair_json(const struct cmp_view *v, int k)
 		if (!x)
 			break;
 		cJSON_AddStringToObject(x, "muscle", muscle_name(m));
-		num(x, "sets_first", d->xa, 2);
-		num(x, "sets_second", d->xb, 2);
-		num(x, "delta_lnrr", d->d, 6);
-		num(x, "se_lnrr", d->se, 6);
-		num(x, "delta_pct", pct(d->d), 4);
-		num(x, "ci_low", pct(d->lo), 4);
-		num(x, "ci_high", pct(d->hi), 4);
-		num(x, "p_above_swc", d->p_gain, 6);
-		num(x, "p_below_minus_swc", d->p_loss, 6);
+		json_num(x, "sets_first", d->xa, 2);
+		json_num(x, "sets_second", d->xb, 2);
+		json_num(x, "delta_lnrr", d->d, 6);
+		json_num(x, "se_lnrr", d->se, 6);
+		json_num(x, "delta_pct", pct(d->d), 4);
+		json_num(x, "ci_low", pct(d->lo), 4);
+		json_num(x, "ci_high", pct(d->hi), 4);
+		json_num(x, "p_above_swc", d->p_gain, 6);
+		json_num(x, "p_below_minus_swc", d->p_loss, 6);
 		cJSON_AddStringToObject(x, "verdict", cmp_verdict_name(d->verdict));
 		cJSON_AddItemToArray(ms, x);
 	}
@@ -283,12 +279,12 @@ int cmp_out_json(FILE *f, const struct cmp_view *v)
 	if (!o)
 		return -1;
 	cJSON_AddStringToObject(o, "status", v->audit[0].cov.trained >= 0.5 ? "trained" : "untrained");
-	num(o, "weeks", v->audit[0].cov.weeks, 2);
+	json_num(o, "weeks", v->audit[0].cov.weeks, 2);
 	cJSON_AddStringToObject(o, "profile", v->prof->name);
-	num(o, "level", v->level, 4);
-	num(o, "swc_pct", pct(v->prof->swc), 4);
-	num(o, "plateau", v->audit[0].plateau, 2);
-	num(o, "session_cap", v->cap, 4);
+	json_num(o, "level", v->level, 4);
+	json_num(o, "swc_pct", pct(v->prof->swc), 4);
+	json_num(o, "plateau", v->audit[0].plateau, 2);
+	json_num(o, "session_cap", v->cap, 4);
 	ps = cJSON_AddArrayToObject(o, "programs");
 	for (int i = 0; ps && i < v->n; i++)
 		cJSON_AddItemToArray(ps, program_json(v, i));
