@@ -17,11 +17,12 @@ PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS) 2>/dev/null)
 # Libraries whose Debian -dev package ships an archive are linked statically: every command is
 # a short-lived process, and loading and binding some twenty shared objects (cairo alone pulls in
 # pixman, freetype, fontconfig, png and the X11 client libraries) took longer than a whole audit.
-# cJSON ships no archive; libbsd (needed by libXdmcp) stays shared.
+# cJSON ships no archive and stays shared (glibc itself provides what libXdmcp once took from
+# libbsd).
 STATIC_LIBS = -lsqlite3 -lgsl -lgslcblas -liniparser -lncursesw -ltinfo \
               -lcairo -lpixman-1 -lfontconfig -lexpat -lfreetype -lpng16 -lz -lbrotlidec \
               -lbrotlicommon -lxcb-shm -lxcb-render -lXrender -lXext -lX11 -lxcb -lXau -lXdmcp
-PKG_LIBS   := -Wl,-Bstatic $(STATIC_LIBS) -Wl,-Bdynamic -lcjson -l:libbsd.so.0 -lpthread -ldl
+PKG_LIBS   := -Wl,-Bstatic $(STATIC_LIBS) -Wl,-Bdynamic -lcjson -lpthread -ldl
 CFLAGS_ALL  = -std=c11 -D_GNU_SOURCE -Wall -Wextra -Werror \
               -Wshadow -Wno-format-truncation -MMD -MP $(OPT) $(SAN) $(PKG_CFLAGS) \
               -DSD_DATADIR='"$(DATADIR)"' $(CFLAGS)

@@ -7,7 +7,6 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
-#include <locale.h>
 #include <unistd.h>
 
 #include "cmd/cmd.h"
@@ -238,9 +237,8 @@ int main(int argc, char **argv)
 	int want_version = 0, want_help = 0, rc = SD_EXIT_OK;
 	const char *nc = getenv("NO_COLOR");
 
-	/* Character widths for aligned tables follow the user's locale; numbers stay in the C
-	 * locale so files read and write the same everywhere. */
-	setlocale(LC_CTYPE, "");
+	/* LC_CTYPE is set only where non-ASCII text is measured or drawn (tbl_locale); numbers
+	 * stay in the C locale so files read and write the same everywhere. */
 	memset(&ctx, 0, sizeof ctx);
 	sd_err_clear(&err);
 	ctx.out = stdout;

@@ -17,7 +17,10 @@ extern const struct sd_cmd cmd_curve;
 
 static int unicode_ok(void)
 {
-	const char *cs = nl_langinfo(CODESET);
+	const char *cs;
+
+	tbl_locale();
+	cs = nl_langinfo(CODESET);
 	return cs && !strcmp(cs, "UTF-8");
 }
 

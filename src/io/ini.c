@@ -1,6 +1,9 @@
 #include "ini.h"
 
 #include <errno.h>
+#include <fcntl.h>
+#include <sys/stat.h>
+#include <unistd.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -88,38 +91,49 @@ int ini_scan(const char *what, const char *label, char *text, sd_ini_fn fn, void
 
 int ini_slurp(const char *what, const char *path, char **text, size_t *len, struct sd_err *e)
 {
-	FILE *f = fopen(path, "rb");
+	struct stat sb;
 	char *buf = NULL;
-	size_t n = 0, cap = 0;
+	size_t n = 0, cap;
+	int fd = open(path, O_RDONLY | O_CLOEXEC);
 
-	if (!f)
+	if (fd < 0)
 		return sd_fail(e, "cannot read %s '%s': %s", what, path, strerror(errno));
+	if (fstat(fd, &sb) == 0 && S_ISDIR(sb.st_mode)) {
+		close(fd);
+		return sd_fail(e, "cannot read %s '%s': %s", what, path, strerror(EISDIR));
+	}
+	/* Sized from fstat so a whole file is one read; pipes and files that grow still work. */
+	cap = sb.st_size > 0 ? (size_t)sb.st_size + 1 : 8192;
 	for (;;) {
-		if (cap - n < 4096) {
-			char *nb = realloc(buf, cap ? cap * 2 : 8192);
-			if (!nb) {
-				free(buf);
-				fclose(f);
-				return sd_fail(e, "out of memory");
-			}
+		if (cap - n < 2) {
+			char *nb = realloc(buf, cap * 2);
+			if (!nb)
+				goto oom;
 			buf = nb;
-			cap = cap ? cap * 2 : 8192;
+			cap *= 2;
 		}
-		size_t got = fread(buf + n, 1, cap - n - 1, f);
-		n += got;
+		if (!buf && !(buf = malloc(cap)))
+			goto oom;
+		ssize_t got = read(fd, buf + n, cap - n - 1);
+		if (got < 0) {
+			if (errno == EINTR)
+				continue;
+			sd_fail(e, "cannot read %s '%s': %s", what, path, strerror(errno));
+			free(buf);
+			close(fd);
+			return -1;
+		}
 		if (got == 0)
 			break;
+		n += (size_t)got;
 	}
-	if (ferror(f)) {
-		sd_fail(e, "cannot read %s '%s': %s", what, path, strerror(errno));
-		free(buf);
-		fclose(f);
-		return -1;
-	}
-	fclose(f);
+	close(fd);
 	buf[n] = '\0';
 	*text = buf;
 	*len = n;
 	return 0;
+oom:
+	free(buf);
+	close(fd);
+	return sd_fail(e, "out of memory");
 }
-

@@ -1,5 +1,6 @@
 #include "table.h"
 
+#include <locale.h>
 #include <stdarg.h>
 #include <stdlib.h>
 #include <string.h>
@@ -71,6 +72,15 @@ int tbl_rows(const struct sd_table *t)
 	return t->nrows;
 }
 
+void tbl_locale(void)
+{
+	static int done;
+	if (!done) {
+		setlocale(LC_CTYPE, "");
+		done = 1;
+	}
+}
+
 /* Display width of UTF-8 text (muscle names are ASCII, but program and athlete names may not
  * be), so columns line up on a terminal. */
 static int width(const char *s)
@@ -83,6 +93,7 @@ static int width(const char *s)
 		p++;
 	if (!*p)
 		return (int)(p - s);
+	tbl_locale();
 	memset(&st, 0, sizeof st);
 	while (*s) {
 		wchar_t wc;

@@ -20,6 +20,10 @@ int tbl_set(struct sd_table *t, int col, const char *fmt, ...) __attribute__((fo
 void tbl_print(const struct sd_table *t, FILE *f, int csv);
 int tbl_rows(const struct sd_table *t);
 void tbl_free(struct sd_table *t);
+/* Takes LC_CTYPE from the environment, once. Only what measures or draws non-ASCII text needs
+ * it (table widths, Unicode plots, the full-screen interface): loading a locale costs a dozen
+ * system calls that a plain audit should not pay. Numbers stay in the C locale. */
+void tbl_locale(void);
 /* Writes one CSV field, quoted when it must be. */
 void tbl_csv_field(FILE *f, const char *s);
 

@@ -12,6 +12,7 @@
 #include <time.h>
 #include <unistd.h>
 
+#include "../io/table.h"
 #include "app.h"
 #include "tui.h"
 
@@ -331,6 +332,7 @@ static int app_new(struct sd_ctx *ctx, struct tui_app **out, struct sd_err *e)
 		return sd_fail(e, "out of memory");
 	a->ctx = ctx;
 	tui_state_init(&a->st);
+	tbl_locale();
 	cs = nl_langinfo(CODESET);
 	a->unicode = cs && !strcmp(cs, "UTF-8");
 	a->color = ctx->opt.color;
