@@ -182,6 +182,11 @@ static void test_csv(void **state)
 	const char *bad2 = "day,exercise,sets\nmon,bench press,abc\n";
 	assert_int_equal(program_parse("b.csv", bad2, strlen(bad2), 1, &lib, &p, &e), -1);
 	assert_non_null(strstr(e.msg, "'b.csv' line 2: sets must be"));
+	/* A UTF-8 byte-order mark (spreadsheet export) is not part of the header. */
+	const char *bom = "\xEF\xBB\xBF" "day,exercise,sets\nmon,bench press,3\n";
+	assert_int_equal(program_parse("bom.csv", bom, strlen(bom), 1, &lib, &p, &e), 0);
+	assert_int_equal(p.nentries, 1);
+	prog_free(&p);
 	const char *bad3 = "exercise,sets\nbench press,3\n";
 	assert_int_equal(program_parse("b.csv", bad3, strlen(bad3), 1, &lib, &p, &e), -1);
 	assert_non_null(strstr(e.msg, "header"));

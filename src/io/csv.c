@@ -36,6 +36,12 @@ struct sd_csv *csv_open(const char *path, struct sd_err *e)
 		free(c);
 		return NULL;
 	}
+	/* Skip a UTF-8 byte-order mark (spreadsheet exports); a file without one is rewound. */
+	if (c->own) {
+		unsigned char bom[3];
+		if (fread(bom, 1, 3, c->f) != 3 || memcmp(bom, "\xEF\xBB\xBF", 3))
+			rewind(c->f);
+	}
 	c->line = 1;
 	return c;
 }

@@ -47,6 +47,9 @@ int ini_scan(const char *what, const char *label, char *text, sd_ini_fn fn, void
 	struct sd_ini_item it = { NULL, NULL, NULL, 0 };
 	int rc;
 
+	if (!strncmp(text, "\xEF\xBB\xBF", 3))   /* a UTF-8 byte-order mark, as some editors write */
+		text += 3;
+
 	for (char *raw = text, *next; raw; raw = next) {
 		next = strchr(raw, '\n');
 		if (next)

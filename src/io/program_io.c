@@ -224,6 +224,11 @@ int program_parse(const char *label, const char *text, size_t len, int is_csv,
 	int rc;
 
 	memset(p, 0, sizeof *p);
+	/* Spreadsheets export CSV with a UTF-8 byte-order mark; it is not part of the header. */
+	if (len >= 3 && !memcmp(text, "\xEF\xBB\xBF", 3)) {
+		text += 3;
+		len -= 3;
+	}
 	if (memchr(text, '\0', len))
 		return sd_fail(e, "cannot read program '%s': binary data (NUL byte)", label);
 	if (is_csv) {

@@ -124,3 +124,10 @@ has err "^setdose: cannot read exercise library 'badlib.ini' line 2: unknown mus
 printf '[my squat]\naliases = back squat\ndirect = quads\n' >clash.ini
 run 1 "$SD" audit --exercises clash.ini "$P/demo-minimal2.ini"
 has err "share the name or alias 'backsquat'"
+# Spreadsheet and editor exports with a UTF-8 byte-order mark read like plain files.
+printf '\357\273\277day,exercise,sets\r\nmon,bench press,3\r\n' >bom.csv
+run 0 "$SD" audit --format csv bom.csv
+has out '^bom.csv,chest,3,0,3\.0,'
+printf '\357\273\277[program]\nname = bom\n[a]\nbench press = 3\n' >bom.ini
+run 0 "$SD" audit --format csv bom.ini
+has out '^bom.ini,chest,3,0,3\.0,'
