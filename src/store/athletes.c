@@ -80,15 +80,13 @@ int db_athlete_get(struct sd_db *db, const char *name, struct db_athlete *out, s
 	if (dbi_prepare(db, "SELECT " ATHLETE_COLS " FROM athletes WHERE name = ?1", &st, e))
 		goto done;
 	sqlite3_bind_text(st, 1, name, -1, SQLITE_TRANSIENT);
-	rc = sqlite3_step(st);
-	if (rc == SQLITE_DONE) {
+	rc = dbi_step_row(db, st, "read athletes", e);
+	if (rc == 0) {
 		sd_fail(e, "unknown athlete '%s' (see 'setdose athlete list')", name);
 		goto done;
 	}
-	if (rc != SQLITE_ROW) {
-		dbi_fail(db, e, "read athletes");
+	if (rc < 0)
 		goto done;
-	}
 	row_athlete(st, out);
 	ret = 0;
 done:

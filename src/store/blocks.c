@@ -52,15 +52,13 @@ int db_block_get(struct sd_db *db, long long id, struct db_block *out, struct sd
 	if (dbi_prepare(db, BLOCK_SELECT "WHERE b.id = ?1", &st, e))
 		goto done;
 	sqlite3_bind_int64(st, 1, id);
-	rc = sqlite3_step(st);
-	if (rc == SQLITE_DONE) {
+	rc = dbi_step_row(db, st, "read blocks", e);
+	if (rc == 0) {
 		sd_fail(e, "unknown block %lld (see 'setdose block list')", id);
 		goto done;
 	}
-	if (rc != SQLITE_ROW) {
-		dbi_fail(db, e, "read blocks");
+	if (rc < 0)
 		goto done;
-	}
 	row_block(st, out);
 	ret = 0;
 done:

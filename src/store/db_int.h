@@ -21,6 +21,9 @@ void dbi_text(sqlite3_stmt *st, int col, char *buf, size_t n);
 int dbi_exec_step(struct sd_db *db, sqlite3_stmt *st, const char *what, struct sd_err *e);
 /* Runs a one-row, one-integer query with one optional bound id (id < 0: none). */
 int dbi_count(struct sd_db *db, const char *sql, long long id, long long *out, struct sd_err *e);
+/* Steps a query expected to return at most one row: 1 with a row, 0 with none, -1 on an error
+ * (e filled with "cannot WHAT: ..."). */
+int dbi_step_row(struct sd_db *db, sqlite3_stmt *st, const char *what, struct sd_err *e);
 /* Fills one record from the current row of a query. */
 typedef int (*dbi_row_fn)(sqlite3_stmt *st, void *rec, struct sd_err *e);
 /* Steps st to the end, filling a malloc'd array of records of `size` bytes with fn; on success

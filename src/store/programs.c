@@ -80,18 +80,16 @@ static int get_by(struct sd_db *db, const char *sql, const char *name, long long
 		sqlite3_bind_text(st, 1, name, -1, SQLITE_TRANSIENT);
 	else
 		sqlite3_bind_int64(st, 1, id);
-	rc = sqlite3_step(st);
-	if (rc == SQLITE_DONE) {
+	rc = dbi_step_row(db, st, "read programs", e);
+	if (rc == 0) {
 		if (name)
 			sd_fail(e, "unknown program '%s' (see 'setdose program list')", name);
 		else
 			sd_fail(e, "unknown program id %lld", id);
 		goto done;
 	}
-	if (rc != SQLITE_ROW) {
-		dbi_fail(db, e, "read programs");
+	if (rc < 0)
 		goto done;
-	}
 	ret = row_program(st, out, 1, e);
 done:
 	sqlite3_finalize(st);

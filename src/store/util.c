@@ -93,3 +93,13 @@ fail:
 	free(v);
 	return -1;
 }
+
+int dbi_step_row(struct sd_db *db, sqlite3_stmt *st, const char *what, struct sd_err *e)
+{
+	int rc = sqlite3_step(st);
+	if (rc == SQLITE_ROW)
+		return 1;
+	if (rc == SQLITE_DONE)
+		return 0;
+	return dbi_fail(db, e, what);
+}
