@@ -39,6 +39,8 @@ int lib_put(struct sd_library *lib, struct sd_exercise *x, struct sd_err *e)
 
 	lib_norm(x->name, x->key, sizeof x->key);
 	i = slot_of(lib, x->key);
+	if (x->fatigue == 0)   /* exercises built in code (tests, allot) leave it unset */
+		x->fatigue = 1.0;
 
 	free(lib->keys);   /* any change invalidates the index */
 	lib->keys = NULL;

@@ -9,6 +9,8 @@
 #include "muscle.h"
 
 #define SD_NAME_MAX 64
+#define SD_FATIGUE_MIN 0.25
+#define SD_FATIGUE_MAX 5.0
 
 struct sd_exercise {
 	char name[SD_NAME_MAX];
@@ -17,6 +19,8 @@ struct sd_exercise {
 	int naliases;
 	sd_mset direct, indirect;
 	char kind[16];           /* barbell, dumbbell, machine, cable, bodyweight, other */
+	double fatigue;          /* systemic and axial cost of one hard set, 1 = a typical machine or
+				  * isolation set; SD_FATIGUE_MIN..SD_FATIGUE_MAX, 1.0 when unstated */
 };
 
 struct sd_libkey {
@@ -31,7 +35,8 @@ struct sd_library {
 	int nkeys;
 };
 
-/* Adds or replaces (same normalised name) an exercise; takes ownership of x's aliases. */
+/* Adds or replaces (same normalised name) an exercise; takes ownership of x's aliases. A
+ * fatigue of 0 (unset) becomes 1.0. */
 int lib_put(struct sd_library *lib, struct sd_exercise *x, struct sd_err *e);
 /* Builds the sorted name index lib_find uses; call after the last lib_put. */
 int lib_index(struct sd_library *lib, struct sd_err *e);

@@ -106,6 +106,7 @@ static int on_item(const struct sd_ini_item *it, void *arg, struct sd_err *e)
 				       st->path, it->line, it->section);
 		snprintf(x->name, sizeof x->name, "%s", it->section);
 		snprintf(x->kind, sizeof x->kind, "other");
+		x->fatigue = 1.0;
 		st->open = 1;
 		st->have_direct = 0;
 		return 0;
@@ -126,8 +127,19 @@ static int on_item(const struct sd_ini_item *it, void *arg, struct sd_err *e)
 		snprintf(x->kind, sizeof x->kind, "%s", it->value);
 		return 0;
 	}
+	if (!strcasecmp(it->key, "fatigue")) {
+		char *end;
+		errno = 0;
+		double f = strtod(it->value, &end);
+		if (end == it->value || *end || errno || !(f >= SD_FATIGUE_MIN && f <= SD_FATIGUE_MAX))
+			return sd_fail(e, "cannot read exercise library '%s' line %d: fatigue must be a number "
+				       "from %g to %g, not '%s'", st->path, it->line, SD_FATIGUE_MIN,
+				       SD_FATIGUE_MAX, it->value);
+		x->fatigue = f;
+		return 0;
+	}
 	return sd_fail(e, "cannot read exercise library '%s' line %d: unknown key '%s' (expected "
-		       "aliases, kind, direct or indirect)", st->path, it->line, it->key);
+		       "aliases, kind, fatigue, direct or indirect)", st->path, it->line, it->key);
 }
 
 int library_load_file(const char *path, struct sd_library *lib, struct sd_err *e)
