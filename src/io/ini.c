@@ -1,6 +1,7 @@
 #include "ini.h"
 
 #include <errno.h>
+#include <stdarg.h>
 #include <fcntl.h>
 #include <sys/stat.h>
 #include <unistd.h>
@@ -41,11 +42,31 @@ static char *value_of(char *v, int *bad)
 	return trim(v);
 }
 
-int ini_scan(const char *what, const char *label, char *text, sd_ini_fn fn, void *arg,
-	     struct sd_err *e)
+/* Reports a malformed line: through the callback (ini_scan_all) or as the error (ini_scan). */
+static int malformed(struct sd_ini_item *it, const char *what, const char *label, int all,
+		     sd_ini_fn fn, void *arg, struct sd_err *e, const char *fmt, ...)
+	__attribute__((format(printf, 8, 9)));
+
+static int malformed(struct sd_ini_item *it, const char *what, const char *label, int all,
+		     sd_ini_fn fn, void *arg, struct sd_err *e, const char *fmt, ...)
 {
-	struct sd_ini_item it = { NULL, NULL, NULL, 0 };
-	int rc;
+	char msg[400];
+	va_list ap;
+
+	va_start(ap, fmt);
+	vsnprintf(msg, sizeof msg, fmt, ap);
+	va_end(ap);
+	if (!all)
+		return sd_fail(e, "cannot read %s '%s' line %d: %s", what, label, it->line, msg);
+	struct sd_ini_item bad = { it->section, NULL, NULL, it->line, msg };
+	return fn(&bad, arg, e);
+}
+
+static int scan(const char *what, const char *label, char *text, int all, sd_ini_fn fn,
+		void *arg, struct sd_err *e)
+{
+	struct sd_ini_item it = { NULL, NULL, NULL, 0, NULL };
+	int rc, skip = 0;
 
 	if (!strncmp(text, "\xEF\xBB\xBF", 3))   /* a UTF-8 byte-order mark, as some editors write */
 		text += 3;
@@ -61,35 +82,79 @@ int ini_scan(const char *what, const char *label, char *text, sd_ini_fn fn, void
 		if (*s == '[') {
 			char *end = strchr(s, ']');
 			char *rest = end ? trim(end + 1) : NULL;
-			if (!end || (*rest && *rest != ';' && *rest != '#'))
-				return sd_fail(e, "cannot read %s '%s' line %d: bad section header '%s'", what, label,
-					       it.line, s);
+			if (!end || (*rest && *rest != ';' && *rest != '#')) {
+				skip = 1;
+				if ((rc = malformed(&it, what, label, all, fn, arg, e,
+						    "bad section header '%s'", s)))
+					return rc;
+				continue;
+			}
 			*end = '\0';
-			it.section = trim(s + 1);
-			if (!*it.section)
-				return sd_fail(e, "cannot read %s '%s' line %d: empty section name", what, label, it.line);
+			char *name = trim(s + 1);
+			if (!*name) {
+				skip = 1;
+				if ((rc = malformed(&it, what, label, all, fn, arg, e, "empty section name")))
+					return rc;
+				continue;
+			}
+			skip = 0;
+			it.section = name;
 			it.key = NULL;
 			it.value = NULL;
 			if ((rc = fn(&it, arg, e)))
 				return rc;
 			continue;
 		}
+		if (skip)
+			continue;
 		char *eq = strchr(s, '=');
-		if (!eq)
-			return sd_fail(e, "cannot read %s '%s' line %d: expected 'name = value', got '%s'", what, label,
-				       it.line, s);
+		if (!eq) {
+			if ((rc = malformed(&it, what, label, all, fn, arg, e,
+					    "expected 'name = value', got '%s'", s)))
+				return rc;
+			continue;
+		}
 		*eq = '\0';
 		int bad;
 		it.key = trim(s);
 		it.value = value_of(eq + 1, &bad);
-		if (bad)
-			return sd_fail(e, "cannot read %s '%s' line %d: unclosed or misplaced quote", what, label, it.line);
-		if (!*it.key)
-			return sd_fail(e, "cannot read %s '%s' line %d: missing key before '='", what, label, it.line);
+		if (bad) {
+			if ((rc = malformed(&it, what, label, all, fn, arg, e,
+					    "unclosed or misplaced quote")))
+				return rc;
+			continue;
+		}
+		if (!*it.key) {
+			if ((rc = malformed(&it, what, label, all, fn, arg, e, "missing key before '='")))
+				return rc;
+			continue;
+		}
 		if ((rc = fn(&it, arg, e)))
 			return rc;
 	}
 	return 0;
+}
+
+int ini_scan(const char *what, const char *label, char *text, sd_ini_fn fn, void *arg,
+	     struct sd_err *e)
+{
+	return scan(what, label, text, 0, fn, arg, e);
+}
+
+int ini_scan_all(char *text, sd_ini_fn fn, void *arg, struct sd_err *e)
+{
+	return scan("", "", text, 1, fn, arg, e);
+}
+
+int ini_nul_line(const char *text, size_t len)
+{
+	const char *nul = memchr(text, '\0', len);
+	int line = 1;
+	if (!nul)
+		return 0;
+	for (const char *s = text; s < nul; s++)
+		line += *s == '\n';
+	return line;
 }
 
 int ini_slurp(const char *what, const char *path, char **text, size_t *len, struct sd_err *e)

@@ -16,6 +16,7 @@ struct sd_ini_item {
 	const char *key;       /* NULL for a section header */
 	const char *value;
 	int line;
+	const char *error;     /* ini_scan_all only: the line is malformed, this says how (key NULL) */
 };
 
 /* Called once per section header (key NULL) and once per key; a non-zero return stops the
@@ -26,6 +27,14 @@ typedef int (*sd_ini_fn)(const struct sd_ini_item *it, void *arg, struct sd_err 
  * e.g. what = "program", label = the file name. */
 int ini_scan(const char *what, const char *label, char *text, sd_ini_fn fn, void *arg,
 	     struct sd_err *e);
+
+/* Like ini_scan, but a malformed line is passed to fn as an item with `error` set instead of
+ * stopping the scan, so a caller can report every bad line in one run; the keys under a
+ * malformed section header are skipped. */
+int ini_scan_all(char *text, sd_ini_fn fn, void *arg, struct sd_err *e);
+
+/* Line (from 1) of the first NUL byte in text[0..len), or 0 when there is none. */
+int ini_nul_line(const char *text, size_t len);
 
 /* Reads a whole file into a NUL-terminated malloc'd buffer; messages say "cannot read WHAT". */
 int ini_slurp(const char *what, const char *path, char **text, size_t *len, struct sd_err *e);
