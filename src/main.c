@@ -285,6 +285,10 @@ fail:
 	rc = err.code ? err.code : SD_EXIT_FAIL;
 	fflush(stdout);
 	fprintf(stderr, "setdose: %s\n", err.msg);
+	for (const char *s = err.more, *nl; (nl = strchr(s, '\n')); s = nl + 1)
+		fprintf(stderr, "setdose: %.*s\n", (int)(nl - s), s);
+	if (err.nmore > sd_more_shown(&err))
+		fprintf(stderr, "setdose: %d more errors not shown\n", err.nmore - sd_more_shown(&err));
 done:
 	if (ctx.db)
 		db_close(ctx.db);

@@ -342,7 +342,7 @@ static int build_program(const struct allot_layout *l, const int *ex, int weeks,
 		day_of[s] = p->ndays - 1;
 		for (int c = 0; c < l->ncand; c++) {
 			int k = l->sets[(size_t)s * (size_t)l->ncand + (size_t)c];
-			struct sd_entry en = { ex[c], k, 0, -1, p->ndays - 1, 0 };
+			struct sd_entry en = { .ex = ex[c], .sets = k, .rir = -1, .day = p->ndays - 1 };
 			if (!k)
 				continue;
 			if (k > SD_MAX_SETS)

@@ -34,7 +34,7 @@ static void pick_name(const char *opt, const struct sd_program *p, const char *p
 		snprintf(buf, n, "%s", opt);
 		return;
 	}
-	if (p->name[0]) {
+	if (p->named) {
 		snprintf(buf, n, "%s", p->name);
 		return;
 	}
@@ -66,6 +66,9 @@ static int add_one(struct sd_ctx *ctx, const char *path, const char *name_opt, s
 		fprintf(ctx->out, "added program '%s' from %s (%d day%s, %d exercise entr%s)\n", name,
 			path, prog.ndays, prog.ndays == 1 ? "" : "s", prog.nentries,
 			prog.nentries == 1 ? "y" : "ies");
+	/* How it was read (an old-style @N, a repeated exercise) matters before it is used. */
+	for (int i = 0; i < prog.nnotes; i++)
+		fprintf(stderr, "setdose: warning: '%s' %s\n", path, prog.notes[i].text);
 	rc = 0;
 done:
 	prog_free(&prog);

@@ -13,6 +13,11 @@ static void warn(struct sd_audit *a, int muscle, int day, const char *fmt, ...)
 	if (a->nwarn >= SD_MAX_WARN)
 		return;
 	struct sd_warning *w = &a->warn[a->nwarn++];
+	if (a->nwarn == SD_MAX_WARN) {   /* the last slot says that more were left out */
+		w->muscle = w->day = -1;
+		snprintf(w->text, sizeof w->text, "more warnings not shown");
+		return;
+	}
 	w->muscle = muscle;
 	w->day = day;
 	va_start(ap, fmt);
@@ -39,7 +44,10 @@ int audit_run(const struct sd_program *prog, const struct sd_library *lib,
 		r->zone = curve_zone(prof, out->plateau, r->dose.fractional);
 	}
 
-	/* Warnings, most serious first: extrapolation, then per-session load, then counting notes. */
+	/* Warnings, most serious first: how the program was read (an old-style effort can empty
+	 * the whole count), extrapolation, per-session load, then counting notes. */
+	for (int i = 0; i < prog->nnotes; i++)
+		warn(out, -1, prog->notes[i].day, "%s", prog->notes[i].text);
 	for (int m = 0; m < SD_NMUSCLES; m++)
 		if (out->row[m].zone == SD_ZONE_BEYOND)
 			warn(out, m, -1, "%s: %.1f weekly fractional sets is past the evidence (%.0f); "
@@ -55,6 +63,9 @@ int audit_run(const struct sd_program *prog, const struct sd_library *lib,
 	if (out->vol.easy_sets)
 		warn(out, -1, -1, "%d set%s with RIR above %d listed but not counted as hard sets",
 		     out->vol.easy_sets, out->vol.easy_sets == 1 ? "" : "s", o->max_rir);
+	if (out->vol.warmup_sets)
+		warn(out, -1, -1, "%d warm-up set%s listed but not counted", out->vol.warmup_sets,
+		     out->vol.warmup_sets == 1 ? "" : "s");
 	if (out->vol.unknown_rir)
 		warn(out, -1, -1, "%d set%s without a stated RIR counted as hard sets",
 		     out->vol.unknown_rir, out->vol.unknown_rir == 1 ? "" : "s");

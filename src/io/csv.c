@@ -15,6 +15,8 @@ struct sd_csv {
 	size_t len, cap;
 	char **fields;
 	int nf, capf;
+	char delim;          /* field separator, ',' unless set */
+	int comments;        /* skip lines starting with '#' */
 };
 
 struct sd_csv *csv_open(const char *path, struct sd_err *e)
@@ -43,6 +45,7 @@ struct sd_csv *csv_open(const char *path, struct sd_err *e)
 			rewind(c->f);
 	}
 	c->line = 1;
+	c->delim = ',';
 	return c;
 }
 
@@ -63,7 +66,41 @@ struct sd_csv *csv_open_mem(const char *label, const char *text, size_t len, str
 		return NULL;
 	}
 	c->line = 1;
+	c->delim = ',';
 	return c;
+}
+
+void csv_set_delim(struct sd_csv *c, char delim)
+{
+	c->delim = delim;
+}
+
+void csv_set_first_line(struct sd_csv *c, int line)
+{
+	c->line = c->start = line;
+}
+
+void csv_set_comments(struct sd_csv *c, int on)
+{
+	c->comments = on;
+}
+
+char csv_detect(const char *line, size_t len)
+{
+	int n[3] = { 0, 0, 0 }, quoted = 0;
+	static const char cand[3] = { ',', ';', '\t' };
+
+	for (size_t i = 0; i < len && line[i] != '\n'; i++) {
+		if (line[i] == '"')
+			quoted = !quoted;
+		for (int k = 0; k < 3 && !quoted; k++)
+			n[k] += line[i] == cand[k];
+	}
+	int best = 0;
+	for (int k = 1; k < 3; k++)
+		if (n[k] > n[best])
+			best = k;
+	return cand[best];
 }
 
 static int put(struct sd_csv *c, char ch, struct sd_err *e)
@@ -112,6 +149,16 @@ int csv_next(struct sd_csv *c, char ***fields, int *n, struct sd_err *e)
 		}
 		if (ch == '\0')
 			return sd_fail(e, "'%s' line %d: NUL byte in a text file", c->path, c->line);
+		if (ch == '#' && c->comments && !any && st == FIELD_START) {
+			while ((ch = getc(c->f)) != EOF && ch != '\n')
+				if (ch == '\0')
+					return sd_fail(e, "'%s' line %d: NUL byte in a text file", c->path, c->line);
+			c->line++;
+			c->start = c->line;
+			if (ch == EOF)
+				return 0;
+			continue;
+		}
 		if (st == QUOTED) {
 			if (ch == '"')
 				st = QUOTE_IN_QUOTED;
@@ -143,7 +190,7 @@ int csv_next(struct sd_csv *c, char ***fields, int *n, struct sd_err *e)
 			break;
 		}
 		any = 1;
-		if (ch == ',') {
+		if (ch == c->delim) {
 			if (nstart >= 255)
 				return sd_fail(e, "'%s' line %d: more than 255 fields", c->path, c->start);
 			if (end_field(c, starts, &nstart, &start, e))

@@ -15,6 +15,15 @@ struct sd_csv;
 struct sd_csv *csv_open(const char *path, struct sd_err *e);
 /* Reads from text held in memory; `label` names it in messages. */
 struct sd_csv *csv_open_mem(const char *label, const char *text, size_t len, struct sd_err *e);
+/* Sets the field separator (',' by default). */
+void csv_set_delim(struct sd_csv *c, char delim);
+/* Numbers lines from `line` (text read from the middle of a file). */
+void csv_set_first_line(struct sd_csv *c, int line);
+/* Makes csv_next skip lines that start with '#' (comment lines). */
+void csv_set_comments(struct sd_csv *c, int on);
+/* The separator a header line uses: the most frequent of ',', ';' and tab outside quotes, ','
+ * on a tie or when there is none. */
+char csv_detect(const char *line, size_t len);
 /* Reads the next record: 1 with fields and n set, 0 at end of file, -1 on error (e filled
  * with "FILE line N: problem"). */
 int csv_next(struct sd_csv *c, char ***fields, int *n, struct sd_err *e);

@@ -1,6 +1,7 @@
 #include "program_io.h"
 
 #include <errno.h>
+#include <stdarg.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -9,11 +10,59 @@
 #include "csv.h"
 #include "ini.h"
 
-#define SD_MAX_WEEKS 104
+#define MAX_GROUPS 16          /* set groups on one line */
+#define LOW_LINES 3            /* lines named in the note on bare @N below 5 */
 
 int program_slurp(const char *path, char **text, size_t *len, struct sd_err *e)
 {
 	return ini_slurp("program", path, text, len, e);
+}
+
+/* One program being read. Every problem is recorded and reading goes on, so one run reports
+ * them all; the first fills e->msg, the others e->more. */
+struct reader {
+	const char *label;
+	const struct sd_library *lib;
+	struct sd_program *p;
+	struct sd_err *e;
+	int is_csv;
+	int nerr;
+	int fatal;                 /* out of memory: stop */
+	int program_line;          /* the [program] header, 0 before one */
+	int in_program;
+	int key_line[3];           /* name, weeks, effort: where given */
+	int skip_day;              /* the current day was refused: check its lines, keep nothing */
+	int low[LOW_LINES], nlow;  /* lines with a bare @N below 5 */
+	double low_value;
+};
+
+static void problem(struct reader *r, int line, const char *fmt, ...)
+	__attribute__((format(printf, 3, 4)));
+
+static void problem(struct reader *r, int line, const char *fmt, ...)
+{
+	char msg[400];
+	va_list ap;
+
+	va_start(ap, fmt);
+	vsnprintf(msg, sizeof msg, fmt, ap);
+	va_end(ap);
+	if (r->nerr++ == 0) {
+		if (line > 0)
+			sd_fail(r->e, "cannot read program '%s' line %d: %s", r->label, line, msg);
+		else
+			sd_fail(r->e, "cannot read program '%s': %s", r->label, msg);
+	} else if (line > 0) {
+		sd_more(r->e, "cannot read program '%s' line %d: %s", r->label, line, msg);
+	} else {
+		sd_more(r->e, "cannot read program '%s': %s", r->label, msg);
+	}
+}
+
+static int oom(struct reader *r)
+{
+	r->fatal = 1;
+	return sd_fail(r->e, "out of memory");
 }
 
 static char *trim(char *s)
@@ -26,11 +75,10 @@ static char *trim(char *s)
 	return s;
 }
 
-/* "unknown exercise 'x' (did you mean 'a' or 'b'?)" */
-static int unknown_exercise(const struct sd_library *lib, const char *label, int line,
-			    const char *name, struct sd_err *e)
+/* "unknown exercise 'x' (did you mean 'a', 'b' or 'c'?)" */
+static void unknown_exercise(struct reader *r, int line, const char *name)
 {
-	int idx[3], n = lib_suggest(lib, name, idx, 3);
+	int idx[3], n = lib_suggest(r->lib, name, idx, 3);
 	char hint[256] = "";
 
 	if (n > 0) {
@@ -38,31 +86,45 @@ static int unknown_exercise(const struct sd_library *lib, const char *label, int
 		for (int i = 0; i < n && used < sizeof hint; i++)
 			used += (size_t)snprintf(hint + used, sizeof hint - used, "%s'%s'",
 						 i == 0 ? "" : (i == n - 1 ? " or " : ", "),
-						 lib->ex[idx[i]].name);
+						 r->lib->ex[idx[i]].name);
 		if (used < sizeof hint)
 			snprintf(hint + used, sizeof hint - used, "?)");
 	}
-	return sd_fail(e, "cannot read program '%s' line %d: unknown exercise '%s'%s", label, line,
-		       name, hint);
+	problem(r, line, "unknown exercise '%s'%s", name, hint);
 }
 
-/* Adds one exercise line to the current day, refusing a second entry of the same exercise
- * in the day: INI readers commonly keep only the last, and a coach would lose sets. */
-static int add_entry(struct sd_program *p, const struct sd_library *lib, const char *label,
-		     int line, const char *name, int sets, int reps, int rir, struct sd_err *e)
+/* The library index of name, or -1 after recording why there is none. */
+static int resolve(struct reader *r, int line, const char *name)
 {
-	struct sd_entry en = { .sets = sets, .reps = reps, .rir = rir, .line = line,
-			       .day = p->ndays - 1 };
+	struct sd_match m;
 
-	en.ex = lib_find(lib, name);
-	if (en.ex < 0)
-		return unknown_exercise(lib, label, line, name, e);
-	for (int i = p->nentries - 1; i >= 0 && p->entries[i].day == en.day; i--)
-		if (p->entries[i].ex == en.ex)
-			return sd_fail(e, "cannot read program '%s' line %d: '%s' appears twice in '%s' "
-				       "(first on line %d); combine the sets on one line",
-				       label, line, name, p->days[en.day].name, p->entries[i].line);
-	return prog_add_entry(p, &en, e);
+	if (strlen(name) >= SD_NAME_MAX) {
+		problem(r, line, "exercise name longer than %d bytes", SD_NAME_MAX - 1);
+		return -1;
+	}
+	switch (lib_match(r->lib, name, &m)) {
+	case SD_MATCH_EXACT:
+		return m.ex;
+	case SD_MATCH_VARIANT:
+		if (prog_note(r->p, line, r->p->ndays - 1, r->e, "line %d: '%s' counted as '%s'", line,
+			      name, r->lib->ex[m.ex].name))
+			return oom(r);
+		return m.ex;
+	case SD_MATCH_AMBIGUOUS: {
+		char list[400];
+		size_t used = 0;
+		list[0] = '\0';
+		for (int i = 0; i < m.nchoices && used < sizeof list; i++)
+			used += (size_t)snprintf(list + used, sizeof list - used, "%s'%s'",
+						 i == 0 ? "" : (i == m.nchoices - 1 ? " or " : ", "),
+						 r->lib->ex[m.choice[i]].name);
+		problem(r, line, "'%s' names more than one exercise; write %s", name, list);
+		return -1;
+	}
+	default:
+		unknown_exercise(r, line, name);
+		return -1;
+	}
 }
 
 static int find_day(const struct sd_program *p, const char *name)
@@ -73,61 +135,184 @@ static int find_day(const struct sd_program *p, const char *name)
 	return -1;
 }
 
-static int program_key(struct sd_program *p, const char *label, int line, const char *key,
-		       const char *val, struct sd_err *e)
+/* Adds the groups of one exercise line to the current day. The same exercise on an earlier
+ * line of the day adds up, with a note: a coach may list it again for a back-off block. */
+static void add_groups(struct reader *r, int line, const char *name, struct sd_entry *g, int ng)
 {
-	if (!strcasecmp(key, "name")) {
-		snprintf(p->name, sizeof p->name, "%s", val);
+	struct sd_program *p = r->p;
+	int ex = resolve(r, line, name), day = p->ndays - 1;
+
+	if (ex < 0 || r->skip_day || day < 0)
+		return;
+	for (int i = p->nentries - 1; i >= 0 && p->entries[i].day == day; i--)
+		if (p->entries[i].ex == ex && p->entries[i].line != line) {
+			if (prog_note(p, line, day, r->e, "line %d: '%s' again in '%s' (first on line %d): "
+				      "the sets add up", line, name, p->days[day].name, p->entries[i].line))
+				oom(r);
+			break;
+		}
+	for (int i = 0; i < ng && !r->fatal; i++) {
+		g[i].ex = ex;
+		g[i].day = day;
+		g[i].line = line;
+		if (prog_add_entry(p, &g[i], r->e))
+			oom(r);
+	}
+}
+
+/* Parses a prescription and remembers a bare @N below 5 for the note at the end. */
+static int parse_value(struct reader *r, int line, const char *value, struct sd_entry *g)
+{
+	struct sd_setinfo info;
+	struct sd_err pe;
+	int n = prog_parse_sets(value, r->p->bare_rir, g, MAX_GROUPS, &info, &pe);
+
+	if (n < 0) {
+		problem(r, line, "%s", pe.msg);
+		return -1;
+	}
+	if (info.bare_low >= 0) {
+		if (r->nlow < LOW_LINES)
+			r->low[r->nlow] = line;
+		if (r->nlow++ == 0)
+			r->low_value = info.bare_low;
+	}
+	return n;
+}
+
+static int day_header(struct reader *r, int line, const char *name)
+{
+	struct sd_program *p = r->p;
+	int d = find_day(p, name);
+
+	r->skip_day = 1;
+	if (d >= 0) {
+		problem(r, line, "day '%s' appears twice (first on line %d)", name, p->days[d].line);
 		return 0;
 	}
-	if (!strcasecmp(key, "weeks")) {
+	if (strlen(name) > SD_DAY_NAME_MAX) {
+		problem(r, line, "day name longer than %d bytes", SD_DAY_NAME_MAX);
+		return 0;
+	}
+	if (prog_add_day(p, name, line, r->e))
+		return oom(r);
+	r->skip_day = 0;
+	return 0;
+}
+
+/* name, weeks and effort of [program] (INI) or "# key: value" lines (CSV). */
+static void program_key(struct reader *r, int line, const char *key, const char *val)
+{
+	static const char *const keys[3] = { "name", "weeks", "effort" };
+	struct sd_program *p = r->p;
+	int k;
+
+	for (k = 0; k < 3 && strcasecmp(key, keys[k]); k++)
+		;
+	if (k == 3) {
+		problem(r, line, "unknown key '%s' in %s (expected name, weeks or effort)", key,
+			r->is_csv ? "the comment lines" : "[program]");
+		return;
+	}
+	if (r->key_line[k]) {
+		problem(r, line, "'%s' given twice (first on line %d)", keys[k], r->key_line[k]);
+		return;
+	}
+	r->key_line[k] = line;
+	if (k == 0) {
+		if (strlen(val) > SD_PROG_NAME_MAX) {
+			problem(r, line, "program name longer than %d bytes", SD_PROG_NAME_MAX);
+			return;
+		}
+		snprintf(p->name, sizeof p->name, "%s", val);
+		p->named = !!*val;
+	} else if (k == 1) {
 		char *end;
 		errno = 0;
 		long w = strtol(val, &end, 10);
 		if (end == val || *end || errno || w < 1 || w > SD_MAX_WEEKS)
-			return sd_fail(e, "cannot read program '%s' line %d: weeks must be a whole number "
-				       "from 1 to %d, not '%s'", label, line, SD_MAX_WEEKS, val);
-		p->weeks = (int)w;
-		return 0;
+			problem(r, line, "weeks must be a whole number from 1 to %d, not '%s'",
+				SD_MAX_WEEKS, val);
+		else
+			p->weeks = (int)w;
+	} else if (!strcasecmp(val, "rir") || !strcasecmp(val, "rpe")) {
+		p->bare_rir = !strcasecmp(val, "rir");
+	} else {
+		problem(r, line, "effort must be 'rpe' (a bare @N is RPE, the default) or 'rir' (a bare "
+			"@N is RIR), not '%s'", val);
 	}
-	return sd_fail(e, "cannot read program '%s' line %d: unknown key '%s' in [program] "
-		       "(expected name or weeks)", label, line, key);
 }
-
-struct ini_state {
-	const char *label;
-	const struct sd_library *lib;
-	struct sd_program *p;
-	int in_program;
-};
 
 static int on_item(const struct sd_ini_item *it, void *arg, struct sd_err *e)
 {
-	struct ini_state *st = arg;
-	struct sd_program *p = st->p;
-	int sets, reps, rir;
+	struct reader *r = arg;
+	struct sd_entry g[MAX_GROUPS];
+	int n;
 
-	if (!it->key) {
-		st->in_program = !strcasecmp(it->section, "program");
-		if (st->in_program)
-			return 0;
-		if (find_day(p, it->section) >= 0)
-			return sd_fail(e, "cannot read program '%s' line %d: day '%s' appears twice",
-				       st->label, it->line, it->section);
-		if (strlen(it->section) >= sizeof p->days[0].name)
-			return sd_fail(e, "cannot read program '%s' line %d: day name too long", st->label,
-				       it->line);
-		return prog_add_day(p, it->section, it->line, e);
+	(void)e;
+	if (it->error) {
+		problem(r, it->line, "%s", it->error);
+		return 0;
 	}
-	if (!it->section)
-		return sd_fail(e, "cannot read program '%s' line %d: '%s' comes before any [day] section",
-			       st->label, it->line, it->key);
-	if (st->in_program)
-		return program_key(p, st->label, it->line, it->key, it->value, e);
-	if (prog_parse_sets(it->value, &sets, &reps, &rir, e))
-		return sd_wrap(e, "cannot read program '%s' line %d", st->label, it->line);
-	return add_entry(p, st->lib, st->label, it->line, it->key, sets, reps, rir, e);
+	if (!it->key) {
+		r->in_program = !strcasecmp(it->section, "program");
+		if (!r->in_program)
+			return day_header(r, it->line, it->section) || r->fatal ? -1 : 0;
+		if (r->program_line)
+			problem(r, it->line, "second [program] section (the first is on line %d)",
+				r->program_line);
+		else
+			r->program_line = it->line;
+		return 0;
+	}
+	if (!it->section) {
+		problem(r, it->line, "'%s' comes before any [day] section", it->key);
+		return 0;
+	}
+	if (r->in_program) {
+		program_key(r, it->line, it->key, it->value);
+		return 0;
+	}
+	if ((n = parse_value(r, it->line, it->value, g)) > 0)
+		add_groups(r, it->line, it->key, g, n);
+	return r->fatal ? -1 : 0;
 }
+
+/* The note on bare @N below 5, once per program: a file written when @N meant RIR reads as
+ * far-from-hard RPE, and this is how the coach finds out. */
+static void low_note(struct reader *r)
+{
+	char lines[64];
+	size_t used = 0;
+	double v = r->low_value;
+	const char *fix = r->is_csv ? "'# effort: rir' at the top" : "'effort = rir' under [program]";
+
+	if (!r->nlow)
+		return;
+	for (int i = 0; i < r->nlow && i < LOW_LINES && used < sizeof lines; i++)
+		used += (size_t)snprintf(lines + used, sizeof lines - used, "%s%d", i ? ", " : "",
+					 r->low[i]);
+	if (r->nlow > LOW_LINES && used < sizeof lines)
+		snprintf(lines + used, sizeof lines - used, " and %d more", r->nlow - LOW_LINES);
+	if (prog_note(r->p, r->low[0], -1, r->e, "line%s %s: RPE %g is far from hard; did you mean "
+		      "RIR %g? (a bare @N is RPE: write 'RIR %g', or %s)", r->nlow > 1 ? "s" : "", lines,
+		      v, v, v, fix))
+		oom(r);
+}
+
+/* Notes in line order (the one on bare @N is made last, at its first line). */
+static void sort_notes(struct sd_program *p)
+{
+	for (int i = 1; i < p->nnotes; i++) {
+		struct sd_pnote t = p->notes[i];
+		int j = i;
+		for (; j > 0 && p->notes[j - 1].line > t.line; j--)
+			p->notes[j] = p->notes[j - 1];
+		p->notes[j] = t;
+	}
+}
+
+/* ---------------------------------------------------------------- CSV */
 
 static int column(char **f, int n, const char *name)
 {
@@ -137,79 +322,193 @@ static int column(char **f, int n, const char *name)
 	return -1;
 }
 
-static int csv_number(const char *label, int line, const char *what, const char *s, int lo,
-		      int hi, int *out, struct sd_err *e)
+static int meta_key(const char *k, size_t n, const char *want)
 {
-	if (csv_int(s, out) || *out < lo || *out > hi)
-		return sd_fail(e, "cannot read program '%s' line %d: %s must be a whole number from %d "
-			       "to %d, not '%s'", label, line, what, lo, hi, s);
+	return n == strlen(want) && !strncasecmp(k, want, n);
+}
+
+/* "# name: Upper/lower" (also "#name = x") at the top of a CSV program; other comment lines
+ * are plain comments. Returns the offset of the first line that is neither. */
+static size_t csv_meta(struct reader *r, const char *text, size_t len, int *first_line)
+{
+	size_t pos = 0;
+	int line = 1;
+
+	while (pos < len) {
+		const char *s = text + pos, *nl = memchr(s, '\n', len - pos);
+		const char *end = nl ? nl : text + len, *k = s;
+		while (k < end && (*k == ' ' || *k == '\t' || *k == '\r'))
+			k++;
+		if (k < end && *k != '#')
+			break;
+		if (k < end) {
+			const char *ke = ++k, *v;
+			while (ke < end && *ke != ':' && *ke != '=')
+				ke++;
+			v = ke + 1;
+			while (k < ke && (*k == ' ' || *k == '\t'))
+				k++;
+			while (ke > k && (ke[-1] == ' ' || ke[-1] == '\t'))
+				ke--;
+			size_t kn = (size_t)(ke - k);
+			if (v <= end && (meta_key(k, kn, "name") || meta_key(k, kn, "weeks") ||
+					 meta_key(k, kn, "effort"))) {
+				char key[8], *val = strndup(v, (size_t)(end - v));
+				if (!val) {
+					oom(r);
+					return len;
+				}
+				memcpy(key, k, kn);
+				key[kn] = '\0';
+				program_key(r, line, key, trim(val));
+				free(val);
+			}
+		}
+		pos = (size_t)(end - text) + (nl != NULL);
+		line++;
+	}
+	*first_line = line;
+	return pos;
+}
+
+struct cols {
+	int day, ex, sets, reps, effort;
+	enum sd_effort scale;
+};
+
+static int csv_header(struct reader *r, char **f, int n, int line, struct cols *c)
+{
+	int rir = column(f, n, "rir"), rpe = column(f, n, "rpe");
+
+	c->day = column(f, n, "day");
+	c->ex = column(f, n, "exercise");
+	c->sets = column(f, n, "sets");
+	c->reps = column(f, n, "reps");
+	c->effort = rir >= 0 ? rir : rpe;
+	c->scale = rir >= 0 ? SD_EFFORT_RIR : SD_EFFORT_RPE;
+	if (c->day < 0 || c->ex < 0 || c->sets < 0) {
+		problem(r, line, "header must name the columns day, exercise, sets (and optionally reps, "
+			"and rir or rpe)");
+		return -1;
+	}
+	if (rir >= 0 && rpe >= 0) {
+		problem(r, line, "header names both rir and rpe; keep one");
+		return -1;
+	}
 	return 0;
 }
 
-static int parse_csv(const char *label, const char *text, size_t len,
-		     const struct sd_library *lib, struct sd_program *p, struct sd_err *e)
+static const char *field(char **f, int n, int col)
 {
-	struct sd_csv *c = csv_open_mem(label, text, len, e);
-	char **f;
-	int n, r, cday, cex, csets, creps, crir, rc = -1;
-
-	if (!c)
-		return -1;
-	r = csv_next(c, &f, &n, e);
-	if (r <= 0) {
-		if (r == 0)
-			rc = 0;  /* empty: reported as an empty program by the caller */
-		goto out;
-	}
-	cday = column(f, n, "day");
-	cex = column(f, n, "exercise");
-	csets = column(f, n, "sets");
-	creps = column(f, n, "reps");
-	crir = column(f, n, "rir");
-	if (cday < 0 || cex < 0 || csets < 0) {
-		sd_fail(e, "cannot read program '%s' line 1: header must name the columns day, exercise, "
-			"sets (and optionally reps, rir)", label);
-		goto out;
-	}
-	while ((r = csv_next(c, &f, &n, e)) > 0) {
-		int line = csv_line(c), sets, reps = 0, rir = -1;
-		if (n <= cday || n <= cex || n <= csets) {
-			sd_fail(e, "cannot read program '%s' line %d: too few fields (%d) for the day, "
-				"exercise and sets columns", label, line, n);
-			goto out;
-		}
-		char *day = trim(f[cday]), *ex = trim(f[cex]);
-		if (!*day || !*ex) {
-			sd_fail(e, "cannot read program '%s' line %d: empty day or exercise", label, line);
-			goto out;
-		}
-		if (csv_number(label, line, "sets", f[csets], 1, SD_MAX_SETS, &sets, e) ||
-		    (creps >= 0 && creps < n && *trim(f[creps]) &&
-		     csv_number(label, line, "reps", f[creps], 1, SD_MAX_REPS, &reps, e)) ||
-		    (crir >= 0 && crir < n && *trim(f[crir]) &&
-		     csv_number(label, line, "rir", f[crir], 0, SD_MAX_RIR, &rir, e)))
-			goto out;
-		int d = find_day(p, day);
-		if (d >= 0 && d != p->ndays - 1) {
-			/* Rows of one day must be together, or the day order would be ambiguous. */
-			sd_fail(e, "cannot read program '%s' line %d: rows of day '%s' are not together",
-				label, line, day);
-			goto out;
-		}
-		if (d < 0 && (strlen(day) >= sizeof p->days[0].name || prog_add_day(p, day, line, e))) {
-			if (strlen(day) >= sizeof p->days[0].name)
-				sd_fail(e, "cannot read program '%s' line %d: day name too long", label, line);
-			goto out;
-		}
-		if (add_entry(p, lib, label, line, ex, sets, reps, rir, e))
-			goto out;
-	}
-	if (r == 0)
-		rc = 0;
-out:
-	csv_close(c);
-	return rc;
+	return col >= 0 && col < n ? trim(f[col]) : "";
 }
+
+static void csv_row(struct reader *r, char **f, int n, int line, const struct cols *c)
+{
+	struct sd_program *p = r->p;
+	struct sd_entry g[MAX_GROUPS];
+	struct sd_err pe;
+	const char *day = field(f, n, c->day), *ex = field(f, n, c->ex);
+	const char *reps = field(f, n, c->reps), *eff = field(f, n, c->effort);
+	int ng;
+
+	if (n <= c->day || n <= c->ex || n <= c->sets) {
+		problem(r, line, "too few fields (%d) for the day, exercise and sets columns", n);
+		return;
+	}
+	if (!*day || !*ex) {
+		problem(r, line, "empty day or exercise");
+		return;
+	}
+	if ((ng = parse_value(r, line, field(f, n, c->sets), g)) < 0)
+		return;
+	if (*reps || *eff) {
+		if (ng > 1) {
+			problem(r, line, "several set groups in the sets column leave the reps and %s columns "
+				"ambiguous; write the groups in full there", c->scale == SD_EFFORT_RIR ? "rir" : "rpe");
+			return;
+		}
+		if (*reps && (g[0].reps || (g[0].flags & SD_SET_AMRAP))) {
+			problem(r, line, "reps given in both the sets and reps columns");
+			return;
+		}
+		if (*reps && prog_parse_reps(reps, &g[0], &pe)) {
+			problem(r, line, "%s", pe.msg);
+			return;
+		}
+		if (*eff && g[0].effort != SD_EFFORT_NONE) {
+			problem(r, line, "effort given in both the sets and %s columns",
+				c->scale == SD_EFFORT_RIR ? "rir" : "rpe");
+			return;
+		}
+		if (*eff && prog_parse_effort(eff, c->scale, &g[0], &pe)) {
+			problem(r, line, "%s", pe.msg);
+			return;
+		}
+	}
+	int d = find_day(p, day);
+	if (d >= 0 && d != p->ndays - 1) {
+		/* Rows of one day must be together, or the day order would be ambiguous. */
+		problem(r, line, "rows of day '%s' are not together (it began on line %d)", day,
+			p->days[d].line);
+		return;
+	}
+	if (d < 0 && (day_header(r, line, day) || r->fatal))
+		return;
+	if (d < 0 && r->skip_day)
+		return;
+	r->skip_day = 0;
+	add_groups(r, line, ex, g, ng);
+}
+
+/* A row of blanks only: spreadsheets export empty rows as ",,," or ";;;". */
+static int blank_row(char **f, int n)
+{
+	for (int i = 0; i < n; i++)
+		if (*trim(f[i]))
+			return 0;
+	return 1;
+}
+
+/* The CSV reader's own errors read "'LABEL' line N: problem". */
+static void reader_error(struct reader *r, const struct sd_err *ce, int line)
+{
+	const char *s = strstr(ce->msg, "' line ");
+	int at;
+	if (s && sscanf(s, "' line %d: ", &at) == 1 && (s = strstr(s, ": ")))
+		problem(r, at, "%s", s + 2);
+	else
+		problem(r, line, "%s", ce->msg);
+}
+
+static int parse_csv(struct reader *r, const char *text, size_t len)
+{
+	struct sd_csv *c = NULL;
+	struct sd_err ce;
+	struct cols cols;
+	char **f;
+	int n, rc, first_line;
+	size_t start = csv_meta(r, text, len, &first_line);
+
+	if (start >= len)
+		return 0;   /* no header: reported as an empty program */
+	if (!(c = csv_open_mem(r->label, text + start, len - start, &ce)))
+		return oom(r);
+	csv_set_first_line(c, first_line);
+	csv_set_delim(c, csv_detect(text + start, len - start));
+	csv_set_comments(c, 1);
+	rc = csv_next(c, &f, &n, &ce);
+	if (rc > 0 && csv_header(r, f, n, csv_line(c), &cols) == 0)
+		while (!r->fatal && (rc = csv_next(c, &f, &n, &ce)) > 0)
+			if (!blank_row(f, n))
+				csv_row(r, f, n, csv_line(c), &cols);
+	if (rc < 0)
+		reader_error(r, &ce, csv_line(c));
+	csv_close(c);
+	return r->fatal ? -1 : 0;
+}
+
+/* ---------------------------------------------------------------- both */
 
 static int has_suffix(const char *s, const char *suffix)
 {
@@ -220,37 +519,58 @@ static int has_suffix(const char *s, const char *suffix)
 int program_parse(const char *label, const char *text, size_t len, int is_csv,
 		  const struct sd_library *lib, struct sd_program *p, struct sd_err *e)
 {
-	char *copy;
-	int rc;
+	struct reader r;
+	int nul;
 
 	memset(p, 0, sizeof *p);
+	memset(&r, 0, sizeof r);
+	r.label = label;
+	r.lib = lib;
+	r.p = p;
+	r.e = e;
+	r.is_csv = is_csv;
 	/* Spreadsheets export CSV with a UTF-8 byte-order mark; it is not part of the header. */
 	if (len >= 3 && !memcmp(text, "\xEF\xBB\xBF", 3)) {
 		text += 3;
 		len -= 3;
 	}
-	if (memchr(text, '\0', len))
-		return sd_fail(e, "cannot read program '%s': binary data (NUL byte)", label);
+	if ((nul = ini_nul_line(text, len)))
+		return sd_fail(e, "cannot read program '%s' line %d: binary data (NUL byte)", label, nul);
 	if (is_csv) {
-		rc = parse_csv(label, text, len, lib, p, e);
+		parse_csv(&r, text, len);
 	} else {
-		if (!(copy = malloc(len + 1)))
+		char *copy = malloc(len + 1);
+		if (!copy)
 			return sd_fail(e, "out of memory");
 		memcpy(copy, text, len);
 		copy[len] = '\0';
-		struct ini_state st = { label, lib, p, 0 };
-		rc = ini_scan("program", label, copy, on_item, &st, e) ? -1 : 0;
+		ini_scan_all(copy, on_item, &r, e);
 		free(copy);
 	}
-	if (!rc && p->nentries == 0)
-		rc = sd_fail(e, "cannot read program '%s': no exercises (empty program)", label);
-	if (!rc && !p->name[0]) {
-		const char *base = strrchr(label, '/');
-		snprintf(p->name, sizeof p->name, "%s", base ? base + 1 : label);
+	if (!r.fatal && !r.nerr && p->nentries == 0)
+		problem(&r, 0, "no exercises (empty program)");
+	if (!r.fatal && !r.nerr) {
+		low_note(&r);
+		sort_notes(p);
 	}
-	if (rc)
+	if (!r.fatal && r.nerr > 1) {
+		size_t used = strlen(e->msg);
+		snprintf(e->msg + used, sizeof e->msg - used, " (first of %d errors)", r.nerr);
+	}
+	if (r.fatal || r.nerr) {
 		prog_free(p);
-	return rc;
+		return -1;
+	}
+	if (!p->name[0]) {
+		const char *base = strrchr(label, '/');
+		base = base ? base + 1 : label;
+		/* A display name only (p->named stays 0): a long file name is shortened visibly. */
+		if (strlen(base) > SD_PROG_NAME_MAX)
+			snprintf(p->name, sizeof p->name, "%.*s...", SD_PROG_NAME_MAX - 3, base);
+		else
+			snprintf(p->name, sizeof p->name, "%s", base);
+	}
+	return 0;
 }
 
 int program_load(const char *path, const struct sd_library *lib, struct sd_program *p,

@@ -8,6 +8,8 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
+#define MAX_LINE 2048   /* 16 groups of at most about 40 characters fit */
+
 /* A value the line reader would cut or mis-split: it strips ';' and '#' comments, splits at
  * the first '=', trims blanks and ends a section name at ']'. */
 static int unsafe(const char *s, int section)
@@ -21,13 +23,24 @@ static int unsafe(const char *s, int section)
 	return 0;
 }
 
-static void set_text(const struct sd_entry *en, char *buf, size_t n)
+/* The groups of one line ("1x3 @9, 3x5 @7"): consecutive entries of one exercise, day and
+ * source line. Returns how many entries it wrote. */
+static int line_text(const struct sd_program *p, int i, char *buf, size_t n)
 {
-	int len = snprintf(buf, n, "%d", en->sets);
-	if (en->reps > 0 && len > 0 && (size_t)len < n)
-		len += snprintf(buf + len, n - (size_t)len, "x%d", en->reps);
-	if (en->rir >= 0 && len > 0 && (size_t)len < n)
-		snprintf(buf + len, n - (size_t)len, " @%d", en->rir);
+	const struct sd_entry *en = &p->entries[i];
+	size_t used = 0;
+	int k = 0;
+
+	buf[0] = '\0';
+	do {
+		char g[96];
+		prog_format_group(&p->entries[i + k], g, sizeof g);
+		if (used < n)
+			used += (size_t)snprintf(buf + used, n - used, "%s%s", k ? ", " : "", g);
+		k++;
+	} while (i + k < p->nentries && en->line > 0 && p->entries[i + k].line == en->line &&
+		 p->entries[i + k].ex == en->ex && p->entries[i + k].day == en->day);
+	return k;
 }
 
 int pwrite_ini(FILE *f, const struct sd_program *p, const struct sd_library *lib,
@@ -45,20 +58,24 @@ int pwrite_ini(FILE *f, const struct sd_program *p, const struct sd_library *lib
 		fprintf(f, "[program]\n");
 	if (p->weeks > 0)
 		fprintf(f, "weeks = %d\n", p->weeks);
+	/* Efforts are written with their scale spelled out (or as @N from RPE 5 up), so no
+	 * 'effort' key is needed: the text reads the same under either default. */
 	for (int d = 0; d < p->ndays; d++) {
 		if (unsafe(p->days[d].name, 1) || !strcasecmp(p->days[d].name, "program"))
 			return sd_fail(e, "day name '%s' cannot be written to a program file",
 				       p->days[d].name);
 		fprintf(f, "\n[%s]\n", p->days[d].name);
-		for (int i = 0; i < p->nentries; i++) {
+		for (int i = 0; i < p->nentries;) {
 			const struct sd_entry *en = &p->entries[i];
-			char sets[48];
-			if (en->day != d)
+			char sets[MAX_LINE];
+			if (en->day != d) {
+				i++;
 				continue;
+			}
 			if (unsafe(lib->ex[en->ex].name, 0))
 				return sd_fail(e, "exercise name '%s' cannot be written to a program file",
 					       lib->ex[en->ex].name);
-			set_text(en, sets, sizeof sets);
+			i += line_text(p, i, sets, sizeof sets);
 			fprintf(f, "%s = %s\n", lib->ex[en->ex].name, sets);
 		}
 	}

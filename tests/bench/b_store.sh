@@ -14,7 +14,7 @@ awk 'BEGIN {
 		printf "[program]\nname = bench template %d\nweeks = %d\n", i, 6 + i % 8 > f
 		for (d = 1; d <= 2 + i % 4; d++) {
 			printf "[day %d]\n", d > f
-			for (k = 1; k <= 12; k++) if (rand() < 0.5) printf "%s = %dx%d @%d\n", ex[k], 1 + int(rand() * 5), 5 + int(rand() * 8), int(rand() * 4) > f
+			for (k = 1; k <= 12; k++) if (rand() < 0.5) printf "%s = %dx%d RIR %d\n", ex[k], 1 + int(rand() * 5), 5 + int(rand() * 8), int(rand() * 4) > f
 		}
 		close(f)
 	}

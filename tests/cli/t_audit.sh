@@ -34,9 +34,16 @@ check "CSV and INI programs give the same audit" cmp -s "$TMP/ini.csv" "$TMP/csv
 run 0 "$SD" audit --summary "$P/demo-fullbody3.ini" "$P/demo-minimal2.ini" "$P/demo-upperlower4.ini"
 check "summary: a header and 16 rows per program" test "$(grep -c 'Tidewater\|demo-' "$TMP/out")" -eq 48
 run 0 "$SD" audit "$P/demo-upperlower4.ini"
-has out 'warning: 2 sets with RIR above 4 listed but not counted'
-run 0 "$SD" audit --max-rir 6 "$P/demo-upperlower4.ini"
+has out 'warning: 2 warm-up sets listed but not counted'
 hasnt out 'not counted as hard sets'
+# The hard-set limit: RPE 5.5 is RIR 4.5, above the default 4; --max-rir 5 counts it.
+printf '[a]\nbench press = 3x10 @5.5\ntriceps pushdown = 2x12 RIR 4\n' >easy.ini
+run 0 "$SD" audit easy.ini
+has out 'warning: 3 sets with RIR above 4 listed but not counted as hard sets'
+has out '^triceps +2 +0 +2\.0 '
+run 0 "$SD" audit --max-rir 5 easy.ini
+hasnt out 'not counted as hard sets'
+has out '^triceps +2 +3 +3\.5 '
 
 # Trained, longer block: -0.05 and +0.02 on the lnRR scale.
 run 0 "$SD" curve --no-plot --status trained --weeks 12 --format csv
@@ -88,9 +95,10 @@ bad 1 "^setdose: cannot read program 'bad.ini' line 3: unknown exercise 'bench p
 bad 1 "line 2: bad set syntax '3y8'" '[a]\nbench press = 3y8\n'
 bad 1 "line 2: absurd set count" '[a]\nbench press = 10000\n'
 bad 1 "line 2: negative set count" '[a]\nbench press = -4\n'
-bad 1 "line 2: RIR out of range" '[a]\nbench press = 3x5 @15\n'
+bad 1 "line 2: RPE out of range" '[a]\nbench press = 3x5 @15\n'
+bad 1 "line 2: RIR out of range" '[a]\nbench press = 3x5 RIR 15\n'
 bad 1 "no exercises \(empty program\)" '[program]\nname = x\n'
-bad 1 "line 3: 'bench press' appears twice in 'a' \(first on line 2\)" '[a]\nbench press = 3\nbench press = 2\n'
+bad 1 "line 3: second \[program\] section \(the first is on line 1\)" '[program]\nname = a\n[program]\nweeks = 4\n[a]\nbench press = 3\n'
 run 1 "$SD" audit missing.ini
 has err "^setdose: cannot read program 'missing.ini': No such file"
 printf '[a]\nbench press = 3\n' >locked.ini; chmod 000 locked.ini

@@ -30,9 +30,9 @@ cat >"$TMP/ed.sh" <<'EOF'
 #!/bin/sh
 n=$(cat "$0.count" 2>/dev/null || echo 0); n=$((n + 1)); echo $n >"$0.count"
 case $n in
-1) sed -i 's/^bench press *=.*/bench pres = 3x6 @2/' "$1" ;;
-2) sed -i 's/^bench pres *=.*/bench press = 4x6 @2/' "$1" ;;
-3) sed -i 's/^leg extension *=.*/leg extension = 2x15 @1/' "$1" ;;
+1) sed -i 's/^bench press *=.*/bench pres = 3x6 @8/' "$1" ;;
+2) sed -i 's/^bench pres *=.*/bench press = 4x6 @8/' "$1" ;;
+3) sed -i 's/^leg extension *=.*/leg extension = 2x15 @9/' "$1" ;;
 esac
 EOF
 chmod +x "$TMP/ed.sh"
@@ -107,6 +107,6 @@ finish
 "$SD" --db "$DB" program show "$MIN v2" >v2.ini 2>&1
 check "the original template is unchanged" cmp -s orig.ini "$ROOT/profiles/demo-minimal2.ini"
 check "the new template has the fixed and changed lines" \
-	sh -c "grep -q '^bench press = 4x6 @2\$' v2.ini && grep -q '^leg extension = 2x15 @1\$' v2.ini"
+	sh -c "grep -q '^bench press = 4x6 @8\$' v2.ini && grep -q '^leg extension = 2x15 @9\$' v2.ini"
 check "the new template differs from the original only in those two lines" \
 	sh -c "[ \$(diff orig.ini v2.ini | grep -c '^>') -eq 2 ]"
