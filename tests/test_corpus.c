@@ -14,14 +14,9 @@ static struct sd_library lib;
 
 static int setup(void **state)
 {
-	struct sd_err e;
 	(void)state;
 	memset(&lib, 0, sizeof lib);
-	if (library_load_file("profiles/exercises.ini", &lib, &e) || lib_index(&lib, &e)) {
-		fprintf(stderr, "%s\n", e.msg);
-		return -1;
-	}
-	return 0;
+	return tu_bundled_library(&lib);
 }
 
 static int teardown(void **state)

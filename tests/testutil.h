@@ -10,11 +10,25 @@
 #include <math.h>
 #include <stdio.h>
 
+#include "io/library_io.h"
+
 /* Asserts |a - b| <= tol, printing both values when it fails. */
 #define assert_near(a, b, tol) do { \
 	double a_ = (a), b_ = (b), t_ = (tol); \
 	if (!(fabs(a_ - b_) <= t_)) \
 		fail_msg("%s = %.10g, expected %.10g (tolerance %g)", #a, a_, b_, t_); \
 } while (0)
+
+/* Loads and indexes the bundled exercise library into lib (tests run from the top folder);
+ * 0, or -1 after printing why. */
+static inline int tu_bundled_library(struct sd_library *lib)
+{
+	struct sd_err e;
+	if (library_load_file("profiles/exercises.ini", lib, &e) || lib_index(lib, &e)) {
+		fprintf(stderr, "%s\n", e.msg);
+		return -1;
+	}
+	return 0;
+}
 
 #endif

@@ -204,7 +204,8 @@ static int at_sign(struct cur *c, int bare_rir, struct sd_setinfo *info, struct 
 		return -1;
 	if (!bare) {
 		blanks(c);
-		c->s += 3;
+		if (!word(c, scale == SD_EFFORT_RIR ? "rir" : "rpe"))
+			return unexpected(c, c->s, e);
 	} else if (scale == SD_EFFORT_RPE && en->eff_lo < 5 && info && info->bare_low < 0) {
 		info->bare_low = en->eff_lo;
 	}

@@ -3,6 +3,25 @@
 # when @N meant RIR, and the README's examples exactly as printed.
 D=$ROOT/tests/data
 
+# audits_alike WHAT A B: the two programs audit alike (name, weeks, hard sets, every muscle's
+# figures and the warnings, whose line numbers may differ).
+audits_alike() {
+	run 0 "$SD" audit --format json "$2"
+	cp "$TMP/out" alike-a.json
+	run 0 "$SD" audit --format json "$3"
+	cp "$TMP/out" alike-b.json
+	check "$1" python3 - alike-a.json alike-b.json <<'PY'
+import json, re, sys
+a, b = (json.load(open(f))["audits"][0] for f in sys.argv[1:3])
+for k in ("program", "weeks", "hard_sets", "muscles"):
+    assert a[k] == b[k], (k, a[k], b[k])
+strip = lambda ws: [(w["day"], re.sub(r"^lines? [0-9, ]+: |\(first on line [0-9]+\)", "", w["text"]))
+                    for w in ws]
+assert strip(a["warnings"]) == strip(b["warnings"]), (a["warnings"], b["warnings"])
+assert a["hard_sets"] > 20 and a["weeks"] in (6, 10)
+PY
+}
+
 # One file, six mistakes: all reported, each with its line, status 1, nothing on stdout.
 run 1 "$SD" audit "$D/program-mistakes.ini"
 lines err 6
@@ -80,16 +99,7 @@ has out "warning: lines 4, 5, 6: RPE 2 is far from hard; did you mean RIR 2\?"
 
 # CSV from spreadsheets: semicolons, decimal commas, name and weeks in comment lines.
 printf '# name: every notation\n# weeks: 6\nday;exercise;sets;reps;rpe\nmon;bench press;2x5 warm-up, 1x3 @9, 3x5 @7;;\nmon;Squats;3;5;8,5\nmon;pull-ups;3;AMRAP;\nmon;lateral raises;3;12-15;9\nmon;bulgarian split squats;3x8/side @2 RIR;;\nmon;plank;3;45s;\nmon;triceps pushdown;3;12;5,5\nthu;squat (high bar);1;5;8\nthu;bench press;2x8-10 rir1;;\nthu;bench press;2;10;8\nthu;RDLs;3;8;8\n' >all.csv
-run 0 "$SD" audit --format json all.ini
-cp "$TMP/out" ini.json
-run 0 "$SD" audit --format json all.csv
-cp "$TMP/out" csv.json
-check "the same program as INI and as semicolon CSV audits alike (name, weeks, doses)" python3 - ini.json csv.json <<'PY'
-import json, sys
-a, b = (json.load(open(f))["audits"][0] for f in sys.argv[1:3])
-for k in ("program", "weeks", "hard_sets", "muscles"):
-    assert a[k] == b[k], (k, a[k], b[k])
-PY
+audits_alike "the same program as INI and as semicolon CSV audits alike" all.ini all.csv
 printf 'day\texercise\tsets\treps\trir\nmon\tbench press\t3\t8\t2\n' >tab.csv
 run 0 "$SD" audit --format csv tab.csv
 has out '^tab\.csv,chest,3,0,3\.0,'
@@ -135,21 +145,7 @@ check "README has an INI and a CSV program" test -s week.ini -a -s week.csv
 run 0 "$SD" audit week.ini
 has out '^Upper/lower, four days \(week\.ini\)'
 hasnt out 'far from hard'
-run 0 "$SD" audit --format json week.ini
-cp "$TMP/out" rini.json
-run 0 "$SD" audit --format json week.csv
-cp "$TMP/out" rcsv.json
-check "README: the INI and CSV examples audit alike" python3 - rini.json rcsv.json <<'PY'
-import json, sys
-a, b = (json.load(open(f))["audits"][0] for f in sys.argv[1:3])
-import re
-for k in ("program", "weeks", "hard_sets", "muscles"):
-    assert a[k] == b[k], (k, a[k], b[k])
-# the same notes, from different line numbers
-strip = lambda ws: [(w["day"], re.sub(r"^line \d+: ", "", w["text"])) for w in ws]
-assert strip(a["warnings"]) == strip(b["warnings"]), (a["warnings"], b["warnings"])
-assert a["weeks"] == 10 and a["hard_sets"] > 20
-PY
+audits_alike "README: the INI and CSV examples audit alike" week.ini week.csv
 sed -n '/^## Using it/,/^```$/p' "$ROOT/README.md" | sed -n '/^setdose .*week\./p' | sed 's/ *#.*//' >readme-cmds.txt
 check "README: commands on week.ini found" test "$(wc -l <readme-cmds.txt)" -ge 5
 while read -r cmd; do
