@@ -124,6 +124,7 @@ struct brute {
 	int n[8];
 	double best;
 	int found;
+	int bestn[8];
 };
 
 static void enumerate(struct brute *b, int c, int left)
@@ -131,13 +132,19 @@ static void enumerate(struct brute *b, int c, int left)
 	if (c == b->p->ncand) {
 		if (allot_feasible(b->p, b->n)) {
 			double v = allot_value(b->p, b->n);
-			if (!b->found || v > b->best)
+			if (!b->found || v > b->best) {
 				b->best = v;
+				memcpy(b->bestn, b->n, sizeof b->n);
+			}
 			b->found = 1;
 		}
 		return;
 	}
+	/* Counts the session rules do not allow are skipped here; allot_feasible would refuse
+	 * them anyway. */
 	for (int k = 0; k <= left; k++) {
+		if (allot_pieces(b->p, k) < 0)
+			continue;
 		b->n[c] = k;
 		enumerate(b, c + 1, left - k);
 	}
@@ -187,7 +194,7 @@ static void equals_brute_force(void **state)
 		struct allot_problem p;
 		struct allot_result r;
 		struct sd_err e;
-		struct brute b = { &p, { 0 }, 0, 0 };
+		struct brute b = { &p, { 0 }, 0, 0, { 0 } };
 		int ncand = 1 + rnd(6), budget = 1 + rnd(16), rc;
 
 		random_problem(&p, a, ncand, budget);
@@ -229,7 +236,7 @@ static void equals_brute_force_medium(void **state)
 		struct allot_problem p;
 		struct allot_result r;
 		struct sd_err e;
-		struct brute b = { &p, { 0 }, 0, 0 };
+		struct brute b = { &p, { 0 }, 0, 0, { 0 } };
 		random_problem(&p, a, 7, 18);
 		for (int m = 0; m < NM; m++)
 			p.min[m] = 0;
@@ -444,17 +451,327 @@ static void nothing_to_buy(void **state)
 	allot_free(&r);
 }
 
-static int session_sets(const struct allot_layout *l, int s)
+/* Brute force with the session rules on: 2-5 candidates, 1-3 sessions, 2-3 sets at least and
+ * 3-5 at most per session, 1-3 exercises per session, and a fatigue budget on some (costs 0.75
+ * to 2.5 per set). Each rule must bind on some instances: the optimum without it breaks it. */
+static void rules_problem(struct allot_problem *p, double *a, double *cost, int ncand)
 {
-	int n = 0;
-	for (int c = 0; c < l->ncand; c++)
-		n += l->sets[s * l->ncand + c];
-	return n;
+	static const double costs[] = { 0.75, 1, 1.5, 2.5 };
+	random_problem(p, a, ncand, 4 + rnd(11));
+	p->cost = cost;
+	for (int c = 0; c < ncand; c++)
+		cost[c] = costs[rnd(4)];
+	p->nsessions = 1 + rnd(3);
+	p->min_sets = 2 + rnd(2);
+	p->max_sets = p->min_sets + 1 + rnd(3);
+	if (p->max_sets > 5)
+		p->max_sets = 5;
+	p->max_exercises = 1 + rnd(3);
+	p->fatigue_budget = rnd(3) ? 0 : 4 + rnd(12);
+	/* Half the time the last candidate is a dominated copy of the first: the same loads on
+	 * the six muscles that may count, half a set more on one that does not (priority 0, no
+	 * --min), and no less fatigue. */
+	if (ncand >= 3 && rnd(2)) {
+		memcpy(a + (ncand - 1) * NM, a, sizeof(double) * NM);
+		a[(ncand - 1) * NM + 6 + rnd(10)] += 0.5;
+		cost[ncand - 1] = cost[0] + 0.25 * rnd(3);
+	}
+}
+
+/* Which rule a brute-force optimum without the rules breaks. */
+static void rules_broken(const struct allot_problem *p, const int *n, int *mins, int *places,
+			 int *fatigue)
+{
+	int pl = 0, bad = 0;
+	for (int c = 0; c < p->ncand; c++) {
+		int k = (n[c] + p->max_sets - 1) / p->max_sets;
+		pl += k;
+		bad |= n[c] > 0 && (n[c] < p->min_sets || k > p->nsessions);
+	}
+	*mins += bad;
+	*places += pl > p->nsessions * p->max_exercises;
+	*fatigue += p->fatigue_budget > 0 && allot_fatigue(p, n) > p->fatigue_budget + 1e-9;
+}
+
+static void equals_brute_force_rules(void **state)
+{
+	double a[5 * NM], cost[5];
+	int solved = 0, infeasible = 0, b_mins = 0, b_places = 0, b_fat = 0, dominated = 0, dused = 0;
+	(void)state;
+	for (int t = 0; t < 300; t++) {
+		struct allot_problem p, free_p;
+		struct allot_result r, rc_;
+		struct sd_err e;
+		int ncand = 2 + rnd(4), rc;
+		rules_problem(&p, a, cost, ncand);
+		struct brute b = { &p, { 0 }, 0, 0, { 0 } };
+		enumerate(&b, 0, p.budget);
+		/* The same without the rules: its optimum shows which rules bind. */
+		free_p = p;
+		free_p.nsessions = free_p.min_sets = free_p.max_sets = free_p.max_exercises = 0;
+		free_p.fatigue_budget = 0;
+		struct brute fb = { &free_p, { 0 }, 0, 0, { 0 } };
+		enumerate(&fb, 0, p.budget);
+		rc = allot_solve(&p, &r, &e);
+		if (!b.found) {
+			if (rc == 0)
+				fail_msg("instance %d: no allotment meets the rules, allot found one", t);
+			infeasible++;
+			continue;
+		}
+		if (rc && e.code == SD_EXIT_USAGE && strstr(e.msg, "priority above 0"))
+			continue;
+		if (rc)
+			fail_msg("instance %d: %s", t, e.msg);
+		if (fb.found && fb.best > b.best + 1e-9)
+			rules_broken(&p, fb.bestn, &b_mins, &b_places, &b_fat);
+		if (ncand >= 3 && !memcmp(a, a + (ncand - 1) * NM, sizeof(double) * 6)) {
+			dominated++;
+			dused += r.sets[ncand - 1] > 0;
+		}
+		assert_true(allot_feasible(&p, r.sets));
+		assert_true(r.proved);
+		assert_near(r.value, b.best, 1e-9 * fmax(1, fabs(b.best)));
+		assert_true(r.bound >= b.best - 1e-12);
+		/* Cold starts give the same optimum. */
+		p.cold = 1;
+		assert_int_equal(allot_solve(&p, &rc_, &e), 0);
+		assert_near(rc_.value, b.best, 1e-9 * fmax(1, fabs(b.best)));
+		allot_free(&rc_);
+		/* And the layout of the optimum keeps every rule. */
+		struct allot_layout l;
+		assert_int_equal(allot_layout(&p, r.sets, 0, 10, &l, &e), 0);
+		assert_int_equal(l.broken, 0);
+		allot_layout_free(&l);
+		solved++;
+		allot_free(&r);
+	}
+	print_message("rules: %d solved, %d infeasible; optimum without the rules breaks min/max "
+		      "sets %d times, exercises per session %d, fatigue budget %d; %d with a "
+		      "dominated copy (used in %d)\n", solved, infeasible, b_mins, b_places, b_fat,
+		      dominated, dused);
+	assert_true(solved > 200);
+	assert_true(b_mins >= 20 && b_places >= 20 && b_fat >= 10 && dominated >= 50);
+}
+
+/* Minimum sets bind by hand: bench press and a lateral raise, 5 sets, 1 session, at least 2
+ * and at most 5 sets of a chosen exercise. Without the rule the best is 4 bench + 1 raise
+ * (g(4) + 2 g(2) + g(1) = 0.16 + 0.26667 + 0.1 = 0.52667, checked against 5 + 0: 0.45238 and
+ * 3 + 2: 0.15 + 0.24 + 0.13333 = 0.52333); with it, 3 + 2. */
+static void min_sets_by_hand(void **state)
+{
+	double a[2 * NM] = { 0 };
+	struct allot_problem p;
+	struct allot_result r;
+	struct sd_err e;
+	(void)state;
+	a[SD_CHEST] = 1;
+	a[SD_TRICEPS] = a[SD_FRONT_DELTS] = 0.5;
+	a[NM + SD_SIDE_DELTS] = 1;
+	base(&p, a, 2, 5);
+	p.tolerance = 0;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_int_equal(r.sets[0], 4);
+	assert_int_equal(r.sets[1], 1);
+	assert_near(r.value, gf(4) + 2 * gf(2) + gf(1), 1e-12);
+	allot_free(&r);
+	p.nsessions = 1;
+	p.min_sets = 2;
+	p.max_sets = 5;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_int_equal(r.sets[0], 3);
+	assert_int_equal(r.sets[1], 2);
+	assert_near(r.value, gf(3) + 2 * gf(1.5) + gf(2), 1e-12);
+	assert_int_equal(r.places, 2);
+	allot_free(&r);
+	/* One exercise a session: the single best one, bench press, 5 sets. */
+	p.max_exercises = 1;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_int_equal(r.sets[0], 5);
+	assert_int_equal(r.sets[1], 0);
+	allot_free(&r);
+	/* Fatigue: bench 1.5 a set, raise 0.75; a budget of 6 fits 3 bench + 2 raises (6.0). */
+	double cost[2] = { 1.5, 0.75 };
+	p.max_exercises = 0;
+	p.cost = cost;
+	p.fatigue_budget = 6;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_int_equal(r.sets[0], 3);
+	assert_int_equal(r.sets[1], 2);
+	assert_near(r.fatigue, 6, 1e-12);
+	allot_free(&r);
+	/* A budget of 5.9 does not. By hand: 2 bench + 3 raises (5.25) is
+	 * g(2) + 2 g(1) + g(3) = 0.13333 + 0.2 + 0.15 = 0.48333, beating 2 + 2 (4.5; 0.46667),
+	 * 3 + 0 (4.5; g(3) + 2 g(1.5) = 0.39) and 0 + 5 (3.75; g(5) = 0.16667). */
+	p.fatigue_budget = 5.9;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_int_equal(r.sets[0], 2);
+	assert_int_equal(r.sets[1], 3);
+	assert_near(r.value, gf(2) + 2 * gf(1) + gf(3), 1e-12);
+	assert_near(r.value, 0.483333333, 1e-9);
+	allot_free(&r);
+}
+
+/* A dominated exercise: the same chest and triceps load as bench press plus half a set for the
+ * lower back (priority 0) at more fatigue. It is used only once bench press is full (5 sets a
+ * session), and the value is the brute-force optimum either way. */
+static void dominated_exercise(void **state)
+{
+	double a[2 * NM] = { 0 }, cost[2] = { 1.5, 2 };
+	struct allot_problem p;
+	struct allot_result r;
+	struct sd_err e;
+	(void)state;
+	a[SD_CHEST] = a[NM + SD_CHEST] = 1;
+	a[SD_TRICEPS] = a[NM + SD_TRICEPS] = 0.5;
+	a[NM + SD_LOWER_BACK] = 0.5;
+	base(&p, a, 2, 10);
+	p.weight[SD_LOWER_BACK] = 0;
+	p.cost = cost;
+	p.nsessions = 2;
+	p.min_sets = 2;
+	p.max_sets = 5;
+	p.tolerance = 0;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_int_equal(r.sets[0], 10);
+	assert_int_equal(r.sets[1], 0);
+	assert_near(r.value, gf(10) + gf(5), 1e-12);
+	assert_near(r.fatigue, 15, 1e-12);
+	allot_free(&r);
+	p.nsessions = 1;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_int_equal(r.sets[0], 5);
+	assert_int_equal(r.sets[1], 5);
+	allot_free(&r);
+}
+
+/* The allowed weekly counts: 0, or k pieces of min..max sets (2 at least once split). */
+static void allowed_counts(void **state)
+{
+	struct allot_problem p;
+	double a[NM] = { 0 };
+	(void)state;
+	base(&p, a, 1, 40);
+	p.nsessions = 3;
+	p.min_sets = 3;
+	p.max_sets = 4;
+	/* 1 piece 3-4, 2 pieces 6-8, 3 pieces 9-12: 5 needs 2 pieces of at least 3. */
+	static const int want[] = { 0, -1, -1, 1, 1, -1, 2, 2, 2, 3, 3, 3, 3, -1 };
+	for (int n = 0; n < 14; n++)
+		assert_int_equal(allot_pieces(&p, n), want[n]);
+	/* --min-sets 1: one set alone is allowed, but a split piece has 2 at least (3 = 2 + 1 and
+	 * 5 = 2 + 2 + 1 are not). */
+	p.min_sets = 1;
+	p.max_sets = 2;
+	static const int want1[] = { 0, 1, 1, -1, 2, -1, 3, -1 };
+	for (int n = 0; n < 8; n++)
+		assert_int_equal(allot_pieces(&p, n), want1[n]);
+}
+
+/* 40 library exercises, budget 60, the command's rules and fatigue costs, exact: proved
+ * optimal, every rule kept, and warm and cold starts agree. */
+static void large_with_rules(void **state)
+{
+	static const char *names[] = {
+		"back squat", "front squat", "deadlift", "romanian deadlift", "leg press",
+		"hack squat", "bulgarian split squat", "leg extension", "lying leg curl",
+		"nordic curl", "hip thrust", "glute bridge", "adductor machine",
+		"standing calf raise", "seated calf raise", "back extension", "good morning",
+		"bench press", "incline bench press", "close-grip bench press", "dip",
+		"chest fly machine", "push-up", "overhead press", "lateral raise", "face pull",
+		"rear delt row", "barbell row", "chest-supported row", "lat pulldown", "pull-up",
+		"dumbbell pullover", "shrug", "barbell curl", "hammer curl", "triceps pushdown",
+		"skull crusher", "wrist curl", "hanging leg raise", "farmer's carry",
+	};
+	struct sd_library lib = { 0 };
+	struct sd_err e;
+	double a[40 * NM], cost[40];
+	struct allot_problem p;
+	struct allot_result r, rc_;
+	struct allot_layout l;
+	(void)state;
+
+	assert_int_equal(library_load_file("profiles/exercises.ini", &lib, &e), 0);
+	assert_int_equal(lib_index(&lib, &e), 0);
+	for (int c = 0; c < 40; c++) {
+		int i = lib_find(&lib, names[c]);
+		assert_true(i >= 0);
+		allot_coeffs(lib.ex[i].direct, lib.ex[i].indirect, 1, 0.5, a + c * NM);
+		cost[c] = allot_multi_joint(lib.ex[i].direct, lib.ex[i].indirect) ? 1.5 : 1;
+	}
+	base(&p, a, 40, 60);
+	p.cost = cost;
+	p.nsessions = 3;
+	p.min_sets = ALLOT_MIN_SETS;
+	p.max_sets = ALLOT_MAX_SETS;
+	p.max_exercises = ALLOT_MAX_EXERCISES;
+	p.tolerance = 0;
+	for (int m = 0; m < NM; m++)
+		p.max[m] = 30;
+	p.weight[SD_LOWER_BACK] = p.weight[SD_FOREARMS] = p.weight[SD_ABS] = 0;
+	p.weight[SD_ADDUCTORS] = 0;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	if (!r.proved || r.gap > 1.5e-9 * fmax(1, r.value))
+		fail_msg("not proved: %ld nodes, gap %g", r.nodes, r.gap);
+	assert_true(allot_feasible(&p, r.sets));
+	assert_true(r.places <= 18);
+	p.cold = 1;
+	assert_int_equal(allot_solve(&p, &rc_, &e), 0);
+	assert_near(rc_.value, r.value, 1e-9 * r.value);
+	print_message("40 candidates, budget 60, rules on, exact: %ld nodes and %ld Newton steps "
+		      "warm, %ld and %ld cold\n", r.nodes, r.newton, rc_.nodes, rc_.newton);
+	allot_free(&rc_);
+	p.cold = 0;
+	/* A fatigue budget below the plan's fatigue binds and is kept. */
+	double f = r.fatigue;
+	allot_free(&r);
+	p.fatigue_budget = floor(0.8 * f);
+	p.tolerance = ALLOT_TOLERANCE;
+	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_true(r.fatigue <= p.fatigue_budget + 1e-9);
+	assert_true(allot_feasible(&p, r.sets));
+	assert_int_equal(allot_layout(&p, r.sets, 0, 10, &l, &e), 0);
+	assert_int_equal(l.broken, 0);
+	allot_layout_free(&l);
+	allot_free(&r);
+	lib_free(&lib);
+}
+
+/* The multi-joint rule on the bundled library's maps (common practice, no source). */
+static void multi_joint(void **state)
+{
+	static const char *multi[] = { "bench press", "back squat", "deadlift",
+				       "romanian deadlift", "overhead press", "barbell row",
+				       "lat pulldown", "pull-up", "dip", "leg press", "hip thrust",
+				       "upright row", NULL };
+	static const char *single[] = { "lateral raise", "leg extension", "lying leg curl",
+					"barbell curl", "hammer curl", "triceps pushdown",
+					"standing calf raise", "chest fly machine", "face pull",
+					"wrist curl", "shrug", "hanging leg raise", "adductor machine",
+					NULL };
+	struct sd_library lib = { 0 };
+	struct sd_err e;
+	(void)state;
+	assert_int_equal(library_load_file("profiles/exercises.ini", &lib, &e), 0);
+	assert_int_equal(lib_index(&lib, &e), 0);
+	for (int i = 0; multi[i]; i++) {
+		int x = lib_find(&lib, multi[i]);
+		assert_true(x >= 0);
+		if (!allot_multi_joint(lib.ex[x].direct, lib.ex[x].indirect))
+			fail_msg("%s should be multi-joint", multi[i]);
+	}
+	for (int i = 0; single[i]; i++) {
+		int x = lib_find(&lib, single[i]);
+		assert_true(x >= 0);
+		if (allot_multi_joint(lib.ex[x].direct, lib.ex[x].indirect))
+			fail_msg("%s should be single-joint", single[i]);
+	}
+	lib_free(&lib);
 }
 
 static void layout(void **state)
 {
-	double a[3 * NM] = { 0 };
+	double a[3 * NM] = { 0 }, cost[3] = { 1.5, 2, 1 };
 	struct allot_problem p;
 	struct allot_layout l;
 	struct sd_err e;
@@ -464,40 +781,79 @@ static void layout(void **state)
 	a[NM + SD_QUADS] = a[NM + SD_GLUTES] = 1; /* squat-like */
 	a[2 * NM + SD_CHEST] = 1;                 /* fly-like */
 	base(&p, a, 3, 40);
+	p.cost = cost;
+	p.nsessions = 3;
+	p.min_sets = 2;
+	p.max_sets = 5;
+	p.max_exercises = 6;
 
-	/* 12 sets of one exercise over 3 sessions under a cap of 10: 4 + 4 + 4. */
+	/* 12 sets of one exercise over 3 sessions: 4 + 4 + 4. */
 	int one[3] = { 12, 0, 0 };
-	assert_int_equal(allot_layout(&p, one, 3, 0, 10, &l, &e), 0);
+	assert_int_equal(allot_layout(&p, one, 0, 10, &l, &e), 0);
 	for (int s = 0; s < 3; s++)
 		assert_int_equal(l.sets[s * 3], 4);
 	assert_int_equal(l.over_cap, 0);
+	assert_int_equal(l.broken, 0);
 	allot_layout_free(&l);
 
-	/* Chest 16 + 8 = 24 fractional sets over 3 sessions: each at most 10 (common practice,
-	 * no source), and at most 12 sets a session. */
-	int mix[3] = { 16, 12, 8 };
-	assert_int_equal(allot_layout(&p, mix, 3, 12, 10, &l, &e), 0);
+	/* 10 + 8 + 6 sets: every piece 2 to 5 sets, chest at most 10 a session, and each session
+	 * within one set and within 2 fatigue of the mean (24 sets, 15 + 16 + 6 = 37 fatigue). */
+	int mix[3] = { 10, 8, 6 };
+	assert_int_equal(allot_layout(&p, mix, 0, 10, &l, &e), 0);
+
+	assert_int_equal(l.broken, 0);
 	assert_int_equal(l.over_cap, 0);
-	assert_int_equal(l.over_limit, 0);
 	for (int s = 0; s < 3; s++) {
+		assert_true(abs(allot_session_sets(&l, s) - 8) <= 1);
+		assert_true(fabs(allot_session_fatigue(&p, &l, s) - 37.0 / 3) <= 2);
 		assert_true(allot_session_load(&p, &l, s, SD_CHEST) <= 10);
-		assert_true(allot_session_load(&p, &l, s, SD_QUADS) <= 10);
-		assert_true(session_sets(&l, s) <= 12);
-	}
-	for (int c = 0; c < 3; c++) {
-		int sum = 0;
-		for (int s = 0; s < 3; s++)
-			sum += l.sets[s * 3 + c];
-		assert_int_equal(sum, mix[c]);
 	}
 	allot_layout_free(&l);
 
 	/* One session cannot keep 12 chest sets under 10: said, not hidden. */
-	int many[3] = { 12, 0, 0 };
-	assert_int_equal(allot_layout(&p, many, 1, 0, 10, &l, &e), 0);
+	int many[3] = { 5, 0, 5 };
+	p.nsessions = 1;
+	assert_int_equal(allot_layout(&p, many, 0, 8, &l, &e), 0);
 	assert_int_equal(l.over_cap, 1);
-	assert_int_equal(l.sets[0], 12);
+	assert_int_equal(l.broken, 0);
 	allot_layout_free(&l);
+}
+
+/* The layout keeps every rule whenever the weekly constraints hold: random allotments that
+ * meet them (allowed counts, places within sessions x exercises), 1-6 sessions, 1-6 exercises
+ * a session, piece limits 1-3 to that plus 0-3. */
+static void layout_always_succeeds(void **state)
+{
+	double a[12 * NM];
+	int tried = 0, tight = 0;
+	(void)state;
+	for (int t = 0; t < 3000; t++) {
+		struct allot_problem p;
+		struct allot_layout l;
+		struct sd_err e;
+		int sets[12] = { 0 }, n = 2 + rnd(11), places = 0;
+		random_problem(&p, a, n, 200);
+		p.nsessions = 1 + rnd(6);
+		p.max_exercises = 1 + rnd(6);
+		p.min_sets = 1 + rnd(3);
+		p.max_sets = p.min_sets + rnd(4);
+		for (int c = 0; c < n; c++) {
+			int v = rnd(3 * p.max_sets * p.nsessions / 2 + 1), k = allot_pieces(&p, v);
+			if (k < 0 || places + k > p.nsessions * p.max_exercises)
+				continue;
+			sets[c] = v;
+			places += k;
+		}
+		tight += places == p.nsessions * p.max_exercises;
+		assert_int_equal(allot_layout(&p, sets, rnd(2) ? 0 : 10, 1 + rnd(10), &l, &e), 0);
+		if (l.broken)
+			fail_msg("layout %d breaks %d rules", t, l.broken);
+		allot_layout_free(&l);
+		tried++;
+	}
+	print_message("layout: %d allotments laid out, %d with every exercise place taken\n", tried,
+		      tight);
+	assert_true(tight > 100);
 }
 
 int main(void)
@@ -507,12 +863,19 @@ int main(void)
 		cmocka_unit_test(greedy_is_not_enough),
 		cmocka_unit_test(equals_brute_force),
 		cmocka_unit_test(equals_brute_force_medium),
+		cmocka_unit_test(equals_brute_force_rules),
+		cmocka_unit_test(min_sets_by_hand),
+		cmocka_unit_test(allowed_counts),
+		cmocka_unit_test(dominated_exercise),
 		cmocka_unit_test(large_within_tolerance),
+		cmocka_unit_test(large_with_rules),
 		cmocka_unit_test(default_candidates),
+		cmocka_unit_test(multi_joint),
 		cmocka_unit_test(bad_problems),
 		cmocka_unit_test(min_is_met),
 		cmocka_unit_test(nothing_to_buy),
 		cmocka_unit_test(layout),
+		cmocka_unit_test(layout_always_succeeds),
 	};
 	return cmocka_run_group_tests(tests, NULL, NULL);
 }

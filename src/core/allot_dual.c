@@ -7,7 +7,7 @@
 #include <gsl/gsl_linalg.h>
 #include <gsl/gsl_matrix.h>
 
-#define MAXD (SD_NMUSCLES + 1)
+#define MAXD (SD_NMUSCLES + 2)
 #define TOL 1e-9
 
 double allot_gain_value(const struct allot_gain *g, int m, double F)
@@ -79,13 +79,18 @@ static double smooth_flat(const struct allot_gain *g, int m, double mu, double F
 }
 
 /* One node of the problem: which muscles the free columns reach (only those keep a
- * multiplier), and the exact value of the others, whose loads are fixed. */
+ * multiplier), and the exact value of the others, whose loads are fixed. Free columns that may
+ * take no set are left out. */
 struct node {
 	const struct allot_gain *g;
 	const double *F0;
 	int R;
+	double W;
+	int fat;                    /* a fatigue budget: lambda is a variable */
 	const struct allot_col *cols;
-	const int *fc;
+	int fc[ALLOT_DUAL_MAXCOL];  /* kept free columns */
+	double ub[ALLOT_DUAL_MAXCOL];
+	int where[ALLOT_DUAL_MAXCOL]; /* index in the caller's fc */
 	int nfree;
 	int d;                      /* active muscles */
 	int nflat;                  /* of which flat (see flat()) */
@@ -95,23 +100,28 @@ struct node {
 	int infeasible;
 };
 
-static void node_setup(struct node *nd, const struct allot_gain *g, const double *F0, int R,
-		       const struct allot_col *cols, const int *fc, int nfree)
+static void node_setup(struct node *nd, const struct allot_gain *g, const struct allot_node *n)
 {
 	nd->g = g;
-	nd->F0 = F0;
-	nd->R = R;
-	nd->cols = cols;
-	nd->fc = fc;
-	nd->nfree = R > 0 ? nfree : 0;
+	nd->F0 = n->F0;
+	nd->R = n->R;
+	nd->W = n->W;
+	nd->fat = n->W < HUGE_VAL;
+	nd->cols = n->cols;
+	nd->nfree = 0;
 	nd->d = 0;
 	nd->nflat = 0;
 	nd->base = 0;
 	nd->infeasible = 0;
 	for (int m = 0; m < SD_NMUSCLES; m++)
 		nd->pos[m] = -1;
-	for (int i = 0; i < nd->nfree; i++) {
-		const struct allot_col *c = &cols[fc[i]];
+	for (int i = 0; i < n->nfree && n->R > 0 && !(nd->fat && n->W <= 0); i++) {
+		const struct allot_col *c = &n->cols[n->fc[i]];
+		if (!(n->ub[i] > 0))
+			continue;
+		nd->fc[nd->nfree] = n->fc[i];
+		nd->ub[nd->nfree] = fmin(n->ub[i], n->R);
+		nd->where[nd->nfree++] = i;
 		for (int k = 0; k < c->nm; k++)
 			if (nd->pos[c->m[k]] < 0) {
 				nd->pos[c->m[k]] = nd->d;
@@ -120,32 +130,66 @@ static void node_setup(struct node *nd, const struct allot_gain *g, const double
 			}
 	}
 	for (int m = 0; m < SD_NMUSCLES; m++) {
+		if (n->F0[m] > g->hi[m] + TOL)
+			nd->infeasible = 1;
 		if (nd->pos[m] >= 0)
 			continue;
-		if (F0[m] < g->lo[m] - TOL || F0[m] > g->hi[m] + TOL)
+		if (n->F0[m] < g->lo[m] - TOL)
 			nd->infeasible = 1;
-		nd->base += allot_gain_value(g, m, F0[m]);
+		nd->base += allot_gain_value(g, m, n->F0[m]);
 	}
 }
 
-/* Column j's reduced price sum_m a_jm mu_m, with mu given per active index. */
-static double price(const struct node *nd, const struct allot_col *c, const double *x)
+/* Column j's reduced price sum_m a_jm mu_m - lambda c_j, with mu given per active index. */
+static double price(const struct node *nd, const struct allot_col *c, const double *x,
+		    double lambda)
 {
-	double s = 0;
+	double s = -lambda * c->cost;
 	for (int k = 0; k < c->nm; k++)
 		s += c->a[k] * x[nd->pos[c->m[k]]];
 	return s;
 }
 
-static double cmax(const struct node *nd, const double *x)
+static double lam_of(const struct node *nd, const double *x)
 {
-	double best = -HUGE_VAL;
+	return nd->fat ? x[nd->d + 1] : 0;
+}
+
+/* The fractional knapsack: the most sum n_j q_j with 0 <= n_j <= ub_j and sum n_j <= R, by
+ * filling the best-priced columns first. */
+static double knapsack(const struct node *nd, const double *x)
+{
+	double q[ALLOT_DUAL_MAXCOL], u[ALLOT_DUAL_MAXCOL], total = 0, sum = 0, left = nd->R;
+	int np = 0;
+
 	for (int i = 0; i < nd->nfree; i++) {
-		double c = price(nd, &nd->cols[nd->fc[i]], x);
-		if (c > best)
-			best = c;
+		double v = price(nd, &nd->cols[nd->fc[i]], x, lam_of(nd, x));
+		if (v > 0) {
+			q[np] = v;
+			u[np++] = nd->ub[i];
+			total += nd->ub[i];
+		}
 	}
-	return best;
+	if (total <= left) {
+		for (int i = 0; i < np; i++)
+			sum += q[i] * u[i];
+		return sum;
+	}
+	/* Insertion sort, best price first: a few dozen columns at most. */
+	for (int i = 1; i < np; i++)
+		for (int j = i; j > 0 && q[j] > q[j - 1]; j--) {
+			double tq = q[j], tu = u[j];
+			q[j] = q[j - 1];
+			u[j] = u[j - 1];
+			q[j - 1] = tq;
+			u[j - 1] = tu;
+		}
+	for (int i = 0; i < np && left > 0; i++) {
+		double take = fmin(u[i], left);
+		sum += q[i] * take;
+		left -= take;
+	}
+	return sum;
 }
 
 /* The separable part: sum over active muscles of max_F [v(F) - mu (F - F0)], flat muscles
@@ -203,36 +247,54 @@ static double node_eval(const struct node *nd, const double *x)
 {
 	if (nd->infeasible)
 		return -HUGE_VAL;
-	double c = nd->nfree ? cmax(nd, x) : 0;
-	return nd->base + lattice_part(nd, x) + nd->R * (c > 0 ? c : 0);
+	return nd->base + lattice_part(nd, x) + lam_of(nd, x) * (nd->fat ? nd->W : 0) +
+	       (nd->nfree ? knapsack(nd, x) : 0);
 }
 
-double allot_dual_eval(const struct allot_gain *g, const double *F0, int R,
-		       const struct allot_col *cols, const int *fc, int nfree, const double *mu)
+double allot_dual_eval(const struct allot_gain *g, const struct allot_node *n,
+		       const struct allot_dual *d)
 {
 	struct node nd;
 	double x[MAXD];
 
-	node_setup(&nd, g, F0, R, cols, fc, nfree);
+	node_setup(&nd, g, n);
 	for (int p = 0; p < nd.d; p++)
-		x[p] = mu[nd.mi[p]];
+		x[p] = d->mu[nd.mi[p]];
+	x[nd.d] = 0;
+	x[nd.d + 1] = d->lambda > 0 ? d->lambda : 0;
 	return node_eval(&nd, x);
 }
 
-/* The barrier function s (sep + R t) - sum_j log(t - c_j) - log t; +inf outside. */
+/* One column's barrier terms with its y (the multiplier of n <= ub) minimised out:
+ *     phi(r) = min_y [a y - log y - log(y - r)],  a = s ub,  r = price - t,
+ * at y = (a r + 2 + S) / (2a), S = sqrt((a r)^2 + 4). With M = S - a r (computed without
+ * cancellation), y - r = (2 + M) / (2a), phi' = 1 / (y - r) and phi'' = 2 a^2 M / (S (2+M)^2).
+ * phi' / s is the column's sets in the barrier's primal solution. */
+static double phi(double a, double r, double *d1, double *d2)
+{
+	double ar = a * r, S = sqrt(ar * ar + 4);
+	double P = ar >= 0 ? ar + S : 4 / (S - ar);    /* a r + S */
+	double M = ar <= 0 ? S - ar : 4 / (S + ar);    /* S - a r */
+	double y = (2 + P) / (2 * a), yr = (2 + M) / (2 * a);
+	if (d1)
+		*d1 = 1 / yr;
+	if (d2)
+		*d2 = 2 * a * a * M / (S * (2 + M) * (2 + M));
+	return a * y - log(y) - log(yr);
+}
+
+/* The barrier function s (sep + R t + W lambda) + sum_j phi_j - log t - log lambda; +inf
+ * outside. */
 static double barrier(const struct node *nd, const double *x, double s)
 {
-	double t = x[nd->d], v;
-	if (!(t > 0))
+	double t = x[nd->d], lam = lam_of(nd, x), v;
+	if (!(t > 0) || (nd->fat && !(lam > 0)))
 		return HUGE_VAL;
 	v = s * (sep_part(nd, x, s, NULL, NULL) + nd->R * t) - log(t);
-
-	for (int i = 0; i < nd->nfree; i++) {
-		double sl = t - price(nd, &nd->cols[nd->fc[i]], x);
-		if (!(sl > 0))
-			return HUGE_VAL;
-		v -= log(sl);
-	}
+	if (nd->fat)
+		v += s * nd->W * lam - log(lam);
+	for (int i = 0; i < nd->nfree; i++)
+		v += phi(s * nd->ub[i], price(nd, &nd->cols[nd->fc[i]], x, lam) - t, NULL, NULL);
 	return v;
 }
 
@@ -265,39 +327,62 @@ static int newton_dir(double *H, const double *gr, int n, double *dx)
 	return rc;
 }
 
-/* Damped Newton on the barrier function for one s: the centering step of the barrier method. */
-static void center(const struct node *nd, double *x, double s)
+/* Gradient and Hessian of the barrier function at x. */
+static void derivs(const struct node *nd, const double *x, double s, double *gr, double *H)
 {
-	int n = nd->d + 1, T = nd->d;
-	double H[MAXD * MAXD], gr[MAXD], hs[MAXD], dx[MAXD], xn[MAXD];
+	int n = nd->d + 1 + nd->fat, T = nd->d, L = nd->d + 1;
+	double hs[MAXD], t = x[T], lam = lam_of(nd, x);
+
+	memset(H, 0, sizeof(double) * (size_t)(n * n));
+	sep_part(nd, x, s, gr, hs);
+	for (int p = 0; p < nd->d; p++) {
+		gr[p] *= s;
+		H[p * n + p] = s * hs[p];
+	}
+	gr[T] = s * nd->R - 1 / t;
+	H[T * n + T] = 1 / (t * t);
+	if (nd->fat) {
+		gr[L] = s * nd->W - 1 / lam;
+		H[L * n + L] = 1 / (lam * lam);
+	}
+	for (int i = 0; i < nd->nfree; i++) {
+		const struct allot_col *c = &nd->cols[nd->fc[i]];
+		double d1, d2, v[MAXD];
+		int idx[MAXD], nv = 0;
+		phi(s * nd->ub[i], price(nd, c, x, lam) - t, &d1, &d2);
+		/* r = sum a mu - lambda c - t: its gradient v over the variables it touches. */
+		for (int k = 0; k < c->nm; k++) {
+			idx[nv] = nd->pos[c->m[k]];
+			v[nv++] = c->a[k];
+		}
+		idx[nv] = T;
+		v[nv++] = -1;
+		if (nd->fat) {
+			idx[nv] = L;
+			v[nv++] = -c->cost;
+		}
+		for (int k = 0; k < nv; k++) {
+			gr[idx[k]] += d1 * v[k];
+			for (int l = 0; l < nv; l++)
+				H[idx[k] * n + idx[l]] += d2 * v[k] * v[l];
+		}
+	}
+}
+
+/* Damped Newton on the barrier function for one s: the centering step of the barrier method.
+ * Returns 1 when centred (the Newton decrement is down to rounding), 0 when it stopped short. */
+static int center(const struct node *nd, double *x, double s, long *steps)
+{
+	int n = nd->d + 1 + nd->fat, T = nd->d, L = nd->d + 1;
+	double H[MAXD * MAXD], gr[MAXD], dx[MAXD], xn[MAXD];
 
 	for (int it = 0; it < 60; it++) {
-		double t = x[T], lam2, g0, alpha;
+		double lam2, g0, alpha;
 
-		memset(H, 0, sizeof(double) * (size_t)(n * n));
-		sep_part(nd, x, s, gr, hs);
-		for (int p = 0; p < nd->d; p++) {
-			gr[p] *= s;
-			H[p * n + p] = s * hs[p];
-		}
-		gr[T] = s * nd->R - 1 / t;
-		H[T * n + T] = 1 / (t * t);
-		for (int i = 0; i < nd->nfree; i++) {
-			const struct allot_col *c = &nd->cols[nd->fc[i]];
-			double inv = 1 / (t - price(nd, c, x)), inv2 = inv * inv;
-			for (int k = 0; k < c->nm; k++) {
-				int p = nd->pos[c->m[k]];
-				gr[p] += c->a[k] * inv;
-				H[p * n + T] -= c->a[k] * inv2;
-				H[T * n + p] -= c->a[k] * inv2;
-				for (int l = 0; l < c->nm; l++)
-					H[p * n + nd->pos[c->m[l]]] += c->a[k] * c->a[l] * inv2;
-			}
-			gr[T] -= inv;
-			H[T * n + T] += inv2;
-		}
+		derivs(nd, x, s, gr, H);
 		if (newton_dir(H, gr, n, dx))
-			return;
+			return 0;
+		(*steps)++;
 		lam2 = 0;
 		for (int i = 0; i < n; i++)
 			lam2 -= gr[i] * dx[i];
@@ -305,16 +390,11 @@ static void center(const struct node *nd, double *x, double s)
 		/* Centred once the decrement (half of it estimates g0 - min) is below what the
 		 * arithmetic can still resolve in g0: beyond that the line search only halves. */
 		if (!(lam2 > 2e-10 && lam2 > 1e-13 * fabs(g0)))
-			return;
-		/* Start no further than 99% of the way to the nearest constraint, so the search
-		 * does not spend its halvings leaving the feasible region. */
+			return 1;
+		/* Start no further than 99% of the way to t = 0 or lambda = 0. */
 		alpha = dx[T] < 0 ? fmin(1, -0.99 * x[T] / dx[T]) : 1;
-		for (int i = 0; i < nd->nfree; i++) {
-			const struct allot_col *c = &nd->cols[nd->fc[i]];
-			double ds = dx[T] - price(nd, c, dx), sl = x[T] - price(nd, c, x);
-			if (ds < 0)
-				alpha = fmin(alpha, -0.99 * sl / ds);
-		}
+		if (nd->fat && dx[L] < 0)
+			alpha = fmin(alpha, -0.99 * x[L] / dx[L]);
 		for (; alpha > 1e-9; alpha *= 0.5) {
 			for (int i = 0; i < n; i++)
 				xn[i] = x[i] + alpha * dx[i];
@@ -323,61 +403,106 @@ static void center(const struct node *nd, double *x, double s)
 				break;
 		}
 		if (alpha <= 1e-9)
-			return;
+			return 0;
 		memcpy(x, xn, sizeof(double) * (size_t)n);
 	}
+	return 0;
 }
 
-double allot_dual_solve(const struct allot_gain *g, const double *F0, int R,
-			const struct allot_col *cols, const int *fc, int nfree, double *mu,
-			double *primal, double stop_below)
+/* A starting point inside: t a little above the best price and above 0, lambda of the size
+ * that makes the costliest column's fatigue price comparable, and s so that the barrier's pull
+ * and the objective's are of one size there. */
+static double cold_start(const struct node *nd, double *x, int nterms)
+{
+	double c = -HUGE_VAL, cmax = 0, delta;
+	for (int i = 0; i < nd->nfree; i++) {
+		c = fmax(c, price(nd, &nd->cols[nd->fc[i]], x, 0));
+		cmax = fmax(cmax, nd->cols[nd->fc[i]].cost);
+	}
+	delta = 0.1 * fmax(fabs(c), 1e-2);
+	x[nd->d] = fmax(c, 0) + delta;
+	if (nd->fat)
+		x[nd->d + 1] = delta / fmax(cmax, 1e-9);
+	return nterms / (nd->R * delta + (nd->fat ? nd->W * x[nd->d + 1] : 0));
+}
+
+double allot_dual_solve(const struct allot_gain *g, const struct allot_node *n,
+			struct allot_dual *d, int warm, double *primal, double stop_below)
 {
 	struct node nd;
-	double x[MAXD], bestx[MAXD], best, s, used_s, c, delta;
-	int T;
+	double x[MAXD], bestx[MAXD], best, s, used_s;
+	int T, nterms, retreats = 0;
 
-	node_setup(&nd, g, F0, R, cols, fc, nfree);
+	node_setup(&nd, g, n);
 	T = nd.d;
 	for (int p = 0; p < nd.d; p++)
-		x[p] = bestx[p] = mu[nd.mi[p]];
+		x[p] = bestx[p] = d->mu[nd.mi[p]];
+	x[T] = 0;
+	x[T + 1] = bestx[T + 1] = nd.fat && d->lambda > 0 ? d->lambda : 0;
 	best = node_eval(&nd, x);
 	if (primal)
-		for (int i = 0; i < nfree; i++)
+		for (int i = 0; i < n->nfree; i++)
 			primal[i] = 0;
-	if (nd.infeasible || nd.d == 0 || best <= stop_below)
+	if (nd.infeasible || nd.d == 0 || nd.nfree == 0 || best <= stop_below)
 		return best;
 
-	/* Start strictly inside: t a little above every column's price and above 0, and s so that
-	 * the barrier's pull and the objective's are of one size there. */
-	c = cmax(&nd, x);
-	delta = 0.1 * fmax(fabs(c), 1e-2);
-	x[T] = fmax(c, 0) + delta;
-	s = (nd.nfree + 1) / (nd.R * delta);
+	nterms = 2 * nd.nfree + 1 + nd.fat;
+	warm = warm && d->s > 0 && d->t > 0 && (!nd.fat || d->lambda > 0);
+	if (warm) {
+		/* The parent's point, some way back along the path: the child's problem differs by
+		 * one fixed column, so its centre is near but not at the parent's. */
+		x[T] = d->t;
+		s = d->s / ALLOT_WARM_BACK;
+	} else {
+		s = cold_start(&nd, x, nterms);
+	}
 	used_s = s;
-	for (int outer = 0; outer < 40; outer++, s *= 8) {
-		center(&nd, x, s);
+	for (int outer = 0; outer < 40; outer++) {
+		int centred = center(&nd, x, s, &d->newton);
 		used_s = s;
 		double v = node_eval(&nd, x);
 		if (v < best) {
 			best = v;
-			memcpy(bestx, x, sizeof(double) * (size_t)nd.d);
+			memcpy(bestx, x, sizeof(double) * (size_t)(nd.d + 2));
 		}
-		/* On the central path D - (continuous optimum) <= (constraints) / s. So once the
-		 * barrier's objective less that margin is above stop_below, no multipliers bring the
-		 * bound down to it: a branch-and-bound node that asked is kept, and more work would
-		 * not change that (an early stop here never drops a node). */
-		double gap = (nd.nfree + 1 + M_LN2 * nd.nflat) / s;
-		if (best <= stop_below || gap <= 1e-10 * (1 + fabs(best)))
+		if (best <= stop_below)
 			break;
-		if (stop_below > -HUGE_VAL &&
-		    nd.base + sep_part(&nd, x, s, NULL, NULL) + nd.R * x[T] - gap > stop_below)
+		if (!centred && warm) {
+			/* The parent's point was too far from this node's path at that s: further back
+			 * along it, then afresh (the gap estimate below holds only on the path). */
+			for (int p = 0; p < nd.d; p++)
+				x[p] = bestx[p];
+			x[T + 1] = bestx[T + 1];
+			if (++retreats <= ALLOT_WARM_RETREATS) {
+				s /= ALLOT_WARM_BACK;
+			} else {
+				s = cold_start(&nd, x, nterms);
+				warm = 0;
+			}
+			continue;
+		}
+		/* Centred at s, D is within (barrier terms) / s of the continuous optimum. */
+		double gap = (nterms + M_LN2 * nd.nflat) / s;
+		/* Converged; or a node that asked about stop_below stands above it by a hundred times
+		 * what more centring could still take off the smooth bound: the node is kept either
+		 * way (stopping early never drops a node, it can only keep one). */
+		if (centred && (gap <= 1e-10 * (1 + fabs(best)) ||
+				(stop_below > -HUGE_VAL && gap <= 0.01 * (best - stop_below))))
 			break;
+		s *= 8;
 	}
-	/* The primal solution is the barrier's multipliers: n_j = 1 / (s (t - c_j)). */
+	/* The primal solution is the barrier's multipliers: n_j = phi'_j / s. */
 	if (primal)
-		for (int i = 0; i < nd.nfree; i++)
-			primal[i] = 1 / (used_s * (x[T] - price(&nd, &cols[fc[i]], x)));
+		for (int i = 0; i < nd.nfree; i++) {
+			double d1;
+			phi(used_s * nd.ub[i], price(&nd, &nd.cols[nd.fc[i]], x, lam_of(&nd, x)) - x[T],
+			    &d1, NULL);
+			primal[nd.where[i]] = d1 / used_s;
+		}
 	for (int p = 0; p < nd.d; p++)
-		mu[nd.mi[p]] = bestx[p];
+		d->mu[nd.mi[p]] = bestx[p];
+	d->lambda = nd.fat ? bestx[T + 1] : 0;
+	d->t = x[T];
+	d->s = used_s;
 	return best;
 }
