@@ -248,9 +248,9 @@ static void equals_brute_force_medium(void **state)
 	}
 }
 
-/* 40 library exercises, budget 60, the command's tolerance: proved within it of an upper
- * bound, the bound above every other allotment tried, and at least as good as a greedy pass. */
-static void large_within_tolerance(void **state)
+/* The 40 library exercises of the benchmark (tests/bench/b_allot.sh): their rows, and a cost
+ * per set of 1.5 for a multi-joint lift and 1 for a single-joint one when cost is not NULL. */
+static void load40(struct sd_library *lib, double *a, double *cost)
 {
 	static const char *names[] = {
 		"back squat", "front squat", "deadlift", "romanian deadlift", "leg press",
@@ -263,6 +263,22 @@ static void large_within_tolerance(void **state)
 		"dumbbell pullover", "shrug", "barbell curl", "hammer curl", "triceps pushdown",
 		"skull crusher", "wrist curl", "hanging leg raise", "farmer's carry",
 	};
+	struct sd_err e;
+	assert_int_equal(library_load_file("profiles/exercises.ini", lib, &e), 0);
+	assert_int_equal(lib_index(lib, &e), 0);
+	for (int c = 0; c < 40; c++) {
+		int i = lib_find(lib, names[c]);
+		assert_true(i >= 0);
+		allot_coeffs(lib->ex[i].direct, lib->ex[i].indirect, 1, 0.5, a + c * NM);
+		if (cost)
+			cost[c] = allot_multi_joint(lib->ex[i].direct, lib->ex[i].indirect) ? 1.5 : 1;
+	}
+}
+
+/* 40 library exercises, budget 60, the command's tolerance: proved within it of an upper
+ * bound, the bound above every other allotment tried, and at least as good as a greedy pass. */
+static void large_within_tolerance(void **state)
+{
 	struct sd_library lib = { 0 };
 	struct sd_err e;
 	double a[40 * NM];
@@ -271,13 +287,7 @@ static void large_within_tolerance(void **state)
 	int greedy[40] = { 0 };
 	(void)state;
 
-	assert_int_equal(library_load_file("profiles/exercises.ini", &lib, &e), 0);
-	assert_int_equal(lib_index(&lib, &e), 0);
-	for (int c = 0; c < 40; c++) {
-		int i = lib_find(&lib, names[c]);
-		assert_true(i >= 0);
-		allot_coeffs(lib.ex[i].direct, lib.ex[i].indirect, 1, 0.5, a + c * NM);
-	}
+	load40(&lib, a, NULL);
 	base(&p, a, 40, 60);
 	p.tolerance = ALLOT_TOLERANCE;
 	for (int m = 0; m < NM; m++)
@@ -632,14 +642,20 @@ static void dominated_exercise(void **state)
 	p.min_sets = 2;
 	p.max_sets = 5;
 	p.tolerance = 0;
+	struct brute b = { &p, { 0 }, 0, 0, { 0 } };
+	enumerate(&b, 0, p.budget);
 	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_near(r.value, b.best, 1e-12);
 	assert_int_equal(r.sets[0], 10);
 	assert_int_equal(r.sets[1], 0);
 	assert_near(r.value, gf(10) + gf(5), 1e-12);
 	assert_near(r.fatigue, 15, 1e-12);
 	allot_free(&r);
 	p.nsessions = 1;
+	struct brute b1 = { &p, { 0 }, 0, 0, { 0 } };
+	enumerate(&b1, 0, p.budget);
 	assert_int_equal(allot_solve(&p, &r, &e), 0);
+	assert_near(r.value, b1.best, 1e-12);
 	assert_int_equal(r.sets[0], 5);
 	assert_int_equal(r.sets[1], 5);
 	allot_free(&r);
@@ -672,17 +688,6 @@ static void allowed_counts(void **state)
  * optimal, every rule kept, and warm and cold starts agree. */
 static void large_with_rules(void **state)
 {
-	static const char *names[] = {
-		"back squat", "front squat", "deadlift", "romanian deadlift", "leg press",
-		"hack squat", "bulgarian split squat", "leg extension", "lying leg curl",
-		"nordic curl", "hip thrust", "glute bridge", "adductor machine",
-		"standing calf raise", "seated calf raise", "back extension", "good morning",
-		"bench press", "incline bench press", "close-grip bench press", "dip",
-		"chest fly machine", "push-up", "overhead press", "lateral raise", "face pull",
-		"rear delt row", "barbell row", "chest-supported row", "lat pulldown", "pull-up",
-		"dumbbell pullover", "shrug", "barbell curl", "hammer curl", "triceps pushdown",
-		"skull crusher", "wrist curl", "hanging leg raise", "farmer's carry",
-	};
 	struct sd_library lib = { 0 };
 	struct sd_err e;
 	double a[40 * NM], cost[40];
@@ -691,14 +696,7 @@ static void large_with_rules(void **state)
 	struct allot_layout l;
 	(void)state;
 
-	assert_int_equal(library_load_file("profiles/exercises.ini", &lib, &e), 0);
-	assert_int_equal(lib_index(&lib, &e), 0);
-	for (int c = 0; c < 40; c++) {
-		int i = lib_find(&lib, names[c]);
-		assert_true(i >= 0);
-		allot_coeffs(lib.ex[i].direct, lib.ex[i].indirect, 1, 0.5, a + c * NM);
-		cost[c] = allot_multi_joint(lib.ex[i].direct, lib.ex[i].indirect) ? 1.5 : 1;
-	}
+	load40(&lib, a, cost);
 	base(&p, a, 40, 60);
 	p.cost = cost;
 	p.nsessions = 3;

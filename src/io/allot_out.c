@@ -238,7 +238,7 @@ static cJSON *summary_json(const struct allot_view *v)
 	json_num(o, "tolerance", p->tolerance, 8);
 	cJSON_AddNumberToObject(o, "nodes", (double)r->nodes);
 	cJSON_AddNumberToObject(o, "newton_steps", (double)r->newton);
-	cJSON_AddNumberToObject(o, "exercises_considered", r->distinct);
+	cJSON_AddNumberToObject(o, "distinct_exercises", r->distinct);
 	json_num(o, "objective", r->value, 8);
 	json_num(o, "upper_bound", r->bound, 8);
 	json_num(o, "relaxation_bound", r->relaxation, 8);
