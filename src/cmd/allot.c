@@ -325,6 +325,9 @@ static int settle_limits(struct plan *pl, struct sd_err *e)
 		return 0;
 	}
 	pl->budget = (int)a->budget;
+	if (pl->budget < a->min_sets)
+		return sd_usage(e, "a budget of %d set%s cannot hold one exercise at --min-sets %lld",
+				pl->budget, pl->budget == 1 ? "" : "s", a->min_sets);
 	if (pl->P && pl->budget > pl->N * pl->P)
 		return sd_usage(e, "conflicting limits: a budget of %d sets does not fit %d session%s "
 				"of at most %d sets (%s)", pl->budget, pl->N, pl->N == 1 ? "" : "s", pl->P,
@@ -589,9 +592,9 @@ static int explain(struct sd_ctx *ctx, struct plan *pl, struct sd_err *e)
 	const char *names[ALLOT_MAX_CAND + 1];
 	struct sd_covars cov = cmd_covars(ctx, pl->have_from ? pl->from.weeks : 0);
 
-	/* The rules and limits need a budget; any will do for showing them. */
+	/* The rules and limits need a budget; any that fits them will do for showing them. */
 	if (pl->a.budget < 0 && pl->a.minutes < 0)
-		pl->a.budget = 1;
+		pl->a.budget = pl->a.min_sets;
 	if (build_problem(ctx, pl, e))
 		return -1;
 	for (int c = 0; c < pl->n; c++)

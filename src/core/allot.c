@@ -148,10 +148,19 @@ static int check_rules(const struct allot_problem *p, struct sd_err *e)
 		return sd_usage(e, "--min-sets %d is above --max-sets %d", p->min_sets, p->max_sets);
 	if (!(p->fatigue_budget >= 0) || !isfinite(p->fatigue_budget))
 		return sd_usage(e, "the fatigue budget must be a number from 0 up");
-	for (int c = 0; p->cost && c < p->ncand; c++)
-		if (!(p->cost[c] > 0) || !isfinite(p->cost[c]))
-			return sd_usage(e, "fatigue costs must be above 0 (candidate %d has %g)", c + 1,
-					p->cost[c]);
+	double cheapest = HUGE_VAL;
+	for (int c = 0; c < p->ncand; c++) {
+		double k = p->cost ? p->cost[c] : 1;
+		if (!(k > 0) || !isfinite(k))
+			return sd_usage(e, "fatigue costs must be above 0 (candidate %d has %g)", c + 1, k);
+		cheapest = fmin(cheapest, k);
+	}
+	/* Not even the cheapest exercise at its least sets fits: say so rather than plan nothing. */
+	int least = p->min_sets > 0 ? p->min_sets : 1;
+	if (p->fatigue_budget > 0 && cheapest * least > p->fatigue_budget + TOL)
+		return sd_usage(e, "a fatigue budget of %g cannot pay for one exercise: the cheapest "
+				"candidate costs %g a set, %g for %d sets", p->fatigue_budget, cheapest,
+				cheapest * least, least);
 	return 0;
 }
 

@@ -230,6 +230,9 @@ bad "^setdose: option '--min-sets' needs a value" --budget 9 --min-sets
 bad "^setdose: --min-sets 4 is above --max-sets 3$" --budget 9 --min-sets 4 --max-sets 3
 bad "^setdose: --max-exercises wants a whole number from 1 to 30, not '0'$" --budget 9 --max-exercises 0
 bad "^setdose: --fatigue-budget wants a number from 0.25 to 5000, not '0'$" --budget 9 --fatigue-budget 0
+bad "^setdose: a budget of 1 set cannot hold one exercise at --min-sets 2$" --budget 1
+bad "^setdose: a fatigue budget of 1 cannot pay for one exercise: the cheapest candidate costs 1 a set, 2 for 2 sets$" \
+	--budget 40 --fatigue-budget 1
 bad "^setdose: --effort wants 'RIR N' or 'RPE N' \(whole numbers 0 to 10\), not 'hard'$" --budget 9 --effort hard
 bad "^setdose: --effort wants 'RIR N' or 'RPE N'" --budget 9 --effort 2
 bad "^setdose: --effort RIR 6 is not a hard set \(sets above RIR 4 are not counted\)$" --budget 9 --effort 'RIR 6'
