@@ -423,6 +423,10 @@ static void bad_problems(void **state)
 	p.fatigue_budget = 1.4;
 	assert_int_equal(allot_check(&p, &e), -1);
 	assert_non_null(strstr(e.msg, "costs 0.75 a set, 1.5 for 2 sets"));
+	p.weight[SD_CHEST] = 0;   /* the cheap one then trains nothing that counts */
+	assert_int_equal(allot_check(&p, &e), -1);
+	assert_non_null(strstr(e.msg, "costs 2 a set, 4 for 2 sets"));
+	p.weight[SD_CHEST] = 1;
 	p.fatigue_budget = 1.5;
 	assert_int_equal(allot_check(&p, &e), 0);
 	cost[1] = 0;

@@ -490,8 +490,9 @@ static int build_problem(struct sd_ctx *ctx, struct plan *pl, struct sd_err *e)
 /* ---- The layout as a program ------------------------------------------------------------ */
 
 /* One day per non-empty session, named by its session number, exercises in session order,
- * every set at the --effort RIR. */
-static int build_program(struct plan *pl, int weeks, struct sd_err *e)
+ * every graded set at the --effort RIR. */
+static int build_program(struct plan *pl, const struct sd_library *lib, int weeks,
+			 struct sd_err *e)
 {
 	const struct allot_layout *l = &pl->lay;
 	struct sd_program *p = &pl->prog;
@@ -514,6 +515,13 @@ static int build_program(struct plan *pl, int weeks, struct sd_err *e)
 			struct sd_entry en = { .ex = pl->ex[c], .sets = k, .rir = pl->a.rir,
 					       .day = p->ndays - 1, .effort = SD_EFFORT_RIR,
 					       .eff_lo = pl->a.rir, .eff_hi = pl->a.rir };
+			/* Lifts the library marks as not graded by reps in reserve (Olympic lifts,
+			 * carries, sleds) carry no RIR: each listed set counts as hard. */
+			if (lib->ex[pl->ex[c]].ungraded) {
+				en.rir = -1;
+				en.effort = SD_EFFORT_NONE;
+				en.eff_lo = en.eff_hi = 0;
+			}
 			if (!k)
 				continue;
 			if (k > SD_MAX_SETS)
@@ -533,7 +541,7 @@ static int lay_out(struct sd_ctx *ctx, struct plan *pl, struct sd_err *e)
 	struct sd_audit_opts ao = { ctx->opt.level, ctx->opt.max_rir, pl->a.cap };
 
 	if (allot_layout(&pl->prob, pl->res.sets, pl->P, pl->a.cap, &pl->lay, e) ||
-	    build_program(pl, weeks, e) ||
+	    build_program(pl, &ctx->lib, weeks, e) ||
 	    audit_run(&pl->prog, &ctx->lib, &ctx->profile, &cov, &ao, &pl->au, e))
 		return -1;
 	if (pl->lay.broken)

@@ -151,16 +151,21 @@ static int check_rules(const struct allot_problem *p, struct sd_err *e)
 	double cheapest = HUGE_VAL;
 	for (int c = 0; c < p->ncand; c++) {
 		double k = p->cost ? p->cost[c] : 1;
+		int useful = 0;
 		if (!(k > 0) || !isfinite(k))
 			return sd_usage(e, "fatigue costs must be above 0 (candidate %d has %g)", c + 1, k);
-		cheapest = fmin(cheapest, k);
+		for (int m = 0; m < SD_NMUSCLES; m++)
+			useful |= p->a[c * SD_NMUSCLES + m] > 0 && (p->weight[m] > 0 || p->min[m] > 0);
+		if (useful)
+			cheapest = fmin(cheapest, k);
 	}
-	/* Not even the cheapest exercise at its least sets fits: say so rather than plan nothing. */
+	/* Not even the cheapest exercise that counts fits at its least sets: say so rather than
+	 * plan nothing. */
 	int least = p->min_sets > 0 ? p->min_sets : 1;
-	if (p->fatigue_budget > 0 && cheapest * least > p->fatigue_budget + TOL)
+	if (p->fatigue_budget > 0 && cheapest < HUGE_VAL && cheapest * least > p->fatigue_budget + TOL)
 		return sd_usage(e, "a fatigue budget of %g cannot pay for one exercise: the cheapest "
-				"candidate costs %g a set, %g for %d sets", p->fatigue_budget, cheapest,
-				cheapest * least, least);
+				"candidate that trains a target costs %g a set, %g for %d sets",
+				p->fatigue_budget, cheapest, cheapest * least, least);
 	return 0;
 }
 

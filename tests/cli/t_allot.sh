@@ -154,6 +154,22 @@ PY
 run 0 "$SD" audit rpe.ini
 hasnt out 'warning|note'
 
+# A lift the library does not grade by RIR (power clean) is written without one; it still counts.
+run 0 "$SD" allot --budget 10 --candidates "power clean,bench press" --priority upper-back=1 \
+	--write graded.ini
+check "power clean without RIR, bench press at RIR 2" python3 - graded.ini <<'PY'
+import re, sys
+lines = [l.strip() for l in open(sys.argv[1])]
+pc = [l for l in lines if l.startswith("power clean =")]
+bp = [l for l in lines if l.startswith("bench press =")]
+assert pc and bp, lines
+assert all(re.fullmatch(r"power clean = [0-9]+", l) for l in pc), pc
+assert all(re.fullmatch(r"bench press = [0-9]+ RIR 2", l) for l in bp), bp
+PY
+run 0 "$SD" audit graded.ini
+hasnt out 'warning|note'
+has out ' 10 hard sets a week'
+
 # Minutes: 45 minutes a session at 3 minutes a set is 15 sets a session, 45 a week.
 run 0 "$SD" allot --minutes-per-session 45 --minutes-per-set 3 --sessions 3 --format json
 check "minutes: budget 45, at most 15 sets a session" python3 - "$TMP/out" <<'PY'
@@ -231,7 +247,7 @@ bad "^setdose: --min-sets 4 is above --max-sets 3$" --budget 9 --min-sets 4 --ma
 bad "^setdose: --max-exercises wants a whole number from 1 to 30, not '0'$" --budget 9 --max-exercises 0
 bad "^setdose: --fatigue-budget wants a number from 0.25 to 5000, not '0'$" --budget 9 --fatigue-budget 0
 bad "^setdose: a budget of 1 set cannot hold one exercise at --min-sets 2$" --budget 1
-bad "^setdose: a fatigue budget of 1 cannot pay for one exercise: the cheapest candidate costs 1 a set, 2 for 2 sets$" \
+bad "^setdose: a fatigue budget of 1 cannot pay for one exercise: the cheapest candidate that trains a target costs 0.75 a set, 1.5 for 2 sets$" \
 	--budget 40 --fatigue-budget 1
 bad "^setdose: --effort wants 'RIR N' or 'RPE N' \(whole numbers 0 to 10\), not 'hard'$" --budget 9 --effort hard
 bad "^setdose: --effort wants 'RIR N' or 'RPE N'" --budget 9 --effort 2
