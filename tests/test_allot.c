@@ -151,6 +151,34 @@ static void enumerate(struct brute *b, int c, int left)
 	b->n[c] = 0;
 }
 
+/* Checks a solve against the brute-force optimum: 1 when solved (feasible, proved, the same
+ * value), 0 when both agree there is nothing to solve. */
+static int matches_brute(const struct allot_problem *p, const struct brute *b, int rc,
+			 const struct allot_result *r, const struct sd_err *e, int t, int *infeasible)
+{
+	if (!b->found) {
+		if (rc == 0)
+			fail_msg("instance %d: no allotment is feasible, allot found one", t);
+		(*infeasible)++;
+		return 0;
+	}
+	/* Refused on purpose: no candidate reaches a muscle that counts, or the fatigue budget
+	 * pays for no exercise; every feasible allotment is then worth 0. */
+	if (rc && e->code == SD_EXIT_USAGE && (strstr(e->msg, "priority above 0") ||
+					      strstr(e->msg, "cannot pay for one exercise"))) {
+		assert_near(b->best, 0, 0);
+		return 0;
+	}
+	if (rc)
+		fail_msg("instance %d: %s", t, e->msg);
+	assert_true(allot_feasible(p, r->sets));
+	assert_true(r->proved);
+	assert_near(r->value, b->best, 1e-9 * fmax(1, fabs(b->best)));
+	assert_near(r->value, allot_value(p, r->sets), 1e-12);
+	assert_true(r->bound >= b->best - 1e-12);
+	return 1;
+}
+
 /* Random instance over six muscles (so exercises overlap): 1-2 direct muscles and 0-2
  * indirect ones per exercise, priorities 0-3, sometimes a --min or a low maximum, and each
  * of the four dose forms. */
@@ -200,25 +228,8 @@ static void equals_brute_force(void **state)
 		random_problem(&p, a, ncand, budget);
 		enumerate(&b, 0, budget);
 		rc = allot_solve(&p, &r, &e);
-		if (!b.found) {
-			if (rc == 0)
-				fail_msg("instance %d: no allotment is feasible, allot found one", t);
-			infeasible++;
+		if (!matches_brute(&p, &b, rc, &r, &e, t, &infeasible))
 			continue;
-		}
-		/* Refused on purpose: no candidate reaches a muscle that counts, so every allotment
-		 * is worth 0 and there is nothing to choose. */
-		if (rc && e.code == SD_EXIT_USAGE && strstr(e.msg, "priority above 0")) {
-			assert_near(b.best, 0, 0);
-			continue;
-		}
-		if (rc)
-			fail_msg("instance %d: %s", t, e.msg);
-		assert_true(allot_feasible(&p, r.sets));
-		assert_true(r.proved);
-		assert_near(r.value, b.best, 1e-9 * fmax(1, fabs(b.best)));
-		assert_near(r.value, allot_value(&p, r.sets), 1e-12);
-		assert_true(r.bound >= b.best - 1e-12);
 		assert_true(r.relaxation >= b.best - 1e-12);
 		solved++;
 		allot_free(&r);
@@ -547,32 +558,14 @@ static void equals_brute_force_rules(void **state)
 		struct brute fb = { &free_p, { 0 }, 0, 0, { 0 } };
 		enumerate(&fb, 0, p.budget);
 		rc = allot_solve(&p, &r, &e);
-		if (!b.found) {
-			if (rc == 0)
-				fail_msg("instance %d: no allotment meets the rules, allot found one", t);
-			infeasible++;
+		if (!matches_brute(&p, &b, rc, &r, &e, t, &infeasible))
 			continue;
-		}
-		if (rc && e.code == SD_EXIT_USAGE && strstr(e.msg, "priority above 0"))
-			continue;
-		/* Refused on purpose: the fatigue budget pays for no exercise, so only the empty
-		 * allotment is feasible. */
-		if (rc && e.code == SD_EXIT_USAGE && strstr(e.msg, "cannot pay for one exercise")) {
-			assert_near(b.best, 0, 0);
-			continue;
-		}
-		if (rc)
-			fail_msg("instance %d: %s", t, e.msg);
 		if (fb.found && fb.best > b.best + 1e-9)
 			rules_broken(&p, fb.bestn, &b_mins, &b_places, &b_fat);
 		if (ncand >= 3 && !memcmp(a, a + (ncand - 1) * NM, sizeof(double) * 6)) {
 			dominated++;
 			dused += r.sets[ncand - 1] > 0;
 		}
-		assert_true(allot_feasible(&p, r.sets));
-		assert_true(r.proved);
-		assert_near(r.value, b.best, 1e-9 * fmax(1, fabs(b.best)));
-		assert_true(r.bound >= b.best - 1e-12);
 		/* Cold starts give the same optimum. */
 		p.cold = 1;
 		assert_int_equal(allot_solve(&p, &rc_, &e), 0);
