@@ -23,8 +23,10 @@
  * to find the multipliers.
  *
  * Warm start: struct allot_dual carries the barrier point and parameter; a child node starts
- * from its parent's (the multipliers of a node and of its children differ by one fixed
- * column), at a barrier parameter a few steps back from where the parent stopped. */
+ * from its parent's point (the problems of a node and of its children differ by one fixed
+ * column) at a barrier parameter between a fresh start's and the parent's final one. Without
+ * it (warm = 0) the multipliers still start at the parent's but the barrier starts afresh,
+ * as it did before. */
 #ifndef SD_ALLOT_DUAL_H
 #define SD_ALLOT_DUAL_H
 
@@ -32,8 +34,8 @@
 #include "profile.h"
 
 #define ALLOT_DUAL_MAXCOL 256   /* free columns of one node at most */
-#define ALLOT_WARM_BACK 4.0    /* a child starts at its parent's barrier parameter over this */
-#define ALLOT_WARM_RETREATS 3   /* times it steps back so far again before starting afresh */
+#define ALLOT_WARM_BACK 4.0     /* a warm start that does not centre steps s back by this ... */
+#define ALLOT_WARM_RETREATS 3   /* ... at most this many times, then starts afresh */
 
 /* The per-muscle objective v_m(F) = weight_m coef (f(F) - f(0)), concave, non-decreasing. */
 struct allot_gain {
