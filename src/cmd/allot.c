@@ -399,11 +399,12 @@ static int exec_allot(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	prob.a = rows;
 	prob.budget = budget;
 	prob.form = ctx->profile.form;
-	prob.b_dose = ctx->profile.beta[1];
 	prob.node_limit = a.node_limit;
 	prob.tolerance = a.tolerance;
 
 	struct sd_covars cov = cmd_covars(ctx, have_from ? from.weeks : 0);
+	/* The dose slope for this athlete's status and block length ("m:dose" terms included). */
+	prob.b_dose = curve_dose_coef(&ctx->profile, &cov);
 	int weeks = cov.weeks == floor(cov.weeks) ? (int)cov.weeks : 0;
 	struct sd_audit_opts ao = { ctx->opt.level, ctx->opt.max_rir, a.cap };
 	if (allot_solve(&prob, &res, e) || allot_layout(&prob, res.sets, N, P, a.cap, &lay, e) ||
