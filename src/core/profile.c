@@ -11,6 +11,14 @@
 static const char *const forms[SD_NFORMS] = { "linear", "log", "sqrt", "reciprocal" };
 static const char *const bases[SD_NBASES] = { "calibrated", "fitted" };
 
+static int find_word(const char *const *words, int n, const char *name)
+{
+	for (int i = 0; i < n; i++)
+		if (!strcmp(name, words[i]))
+			return i;
+	return -1;
+}
+
 const char *form_name(enum sd_form f)
 {
 	return f < SD_NFORMS ? forms[f] : "?";
@@ -18,10 +26,7 @@ const char *form_name(enum sd_form f)
 
 int form_find(const char *name)
 {
-	for (int i = 0; i < SD_NFORMS; i++)
-		if (!strcmp(name, forms[i]))
-			return i;
-	return -1;
+	return find_word(forms, SD_NFORMS, name);
 }
 
 double form_f(enum sd_form f, double x)
@@ -54,10 +59,7 @@ const char *basis_name(enum sd_basis b)
 
 int basis_find(const char *name)
 {
-	for (int i = 0; i < SD_NBASES; i++)
-		if (!strcmp(name, bases[i]))
-			return i;
-	return -1;
+	return find_word(bases, SD_NBASES, name);
 }
 
 int profile_term(const struct sd_profile *p, const char *name)
