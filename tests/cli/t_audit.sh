@@ -213,3 +213,9 @@ has out '^bom.csv,chest,3,0,3\.0,'
 printf '\357\273\277[program]\nname = bom\n[a]\nbench press = 3\n' >bom.ini
 run 0 "$SD" audit --format csv bom.ini
 has out '^bom.ini,chest,3,0,3\.0,'
+
+# The documentation names the three levels as the outputs do, and no longer calls the group
+# band a prediction for one athlete.
+check "README names the three levels" sh -c "grep -q '\*\*curve\*\* — the average curve' '$ROOT/README.md' && grep -q '\*\*group\*\* — a new group or study' '$ROOT/README.md' && grep -q '\*\*athlete\*\* — one athlete' '$ROOT/README.md'"
+check "the man page names the three levels" sh -c "grep -q '^.SH THREE LEVELS OF UNCERTAINTY' '$ROOT/man/setdose.1' && grep -q '^a new group or study: adds the between' '$ROOT/man/setdose.1' && grep -q '^one athlete: adds the profile' '$ROOT/man/setdose.1'"
+check "no document calls a band a prediction band or 'a new athlete'" sh -c "! grep -Eqi 'prediction band|prediction interval \(a new athlete\)|\(one athlete\)\"' '$ROOT/README.md' '$ROOT/man/setdose.1' '$ROOT/DEVELOPERS.md'"
