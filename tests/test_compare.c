@@ -1,6 +1,6 @@
-/* Program comparison: the difference between two small programs per muscle, its interval, the
- * probability it exceeds the SWC and the verdict, worked by hand with the bundled profile
- * (y = 0.25 - 0.20/(x+1) + ..., SE of the dose coefficient 0.020, SWC ln 1.03). */
+/* Program comparison: the difference between two small programs per muscle, its interval and
+ * the decision against the SWC, worked by hand with the bundled profile (y = 0.25 - 0.20/(x+1)
+ * + ..., SE of the dose coefficient 0.020, SWC ln 1.03). */
 #include "testutil.h"
 
 #include <string.h>
@@ -43,15 +43,16 @@ static void audit_text(const char *text, struct sd_program *p, struct sd_audit *
 }
 
 /* Program A: 3 sets of bench press a week; B: 8. Chest (direct) 3 -> 8, triceps (indirect,
- * 0.5 each) 1.5 -> 4. By hand, with f(x) = 1/(x+1):
+ * 0.5 each) 1.5 -> 4. By hand, untrained 10 weeks (the weeks:dose and trained terms are 0),
+ * with f(x) = 1/(x+1):
  *   chest    d = -0.20 (1/9 - 1/4) = 1/36 = 0.0277778,  se = 0.020 (1/4 - 1/9) = 1/360
  *            95% CI d -+ 1.959964/360 = [0.0223334, 0.0332221]; as percent 100(e^d - 1):
  *            2.81672%, CI [2.25847%, 3.37801%]
- *            z = (ln 1.03 - 1/36) / (1/360) = 0.641169; P(d > SWC) = 1 - Phi(0.641169).
- *            Normal table (Abramowitz & Stegun 1964, Table 26.1, 4 digits): Phi(0.64) = 0.7389,
- *            Phi(0.65) = 0.7422; interpolated Phi(0.6412) = 0.7393, so P = 0.2607.
- *   triceps  d = -0.20 (1/5 - 1/2.5) = 0.04, se = 0.004, CI [0.03216, 0.04784]: beyond the
- *            SWC (0.029559) and excluding 0. */
+ *            decision interval (90%): d -+ 1.644854/360 = [0.0232088, 0.0323468]: above 0,
+ *            reaching inside the SWC (0.0295588): some-gain
+ *   triceps  d = -0.20 (1/5 - 1/2.5) = 0.04, se = 0.004, 90% [0.0334206, 0.0465794]: wholly
+ *            above the SWC: clear-gain.
+ * Normal quantiles 1.959964 and 1.644854: Abramowitz & Stegun 1964, Table 26.1. */
 static void two_programs(void **state)
 {
 	struct sd_program pa, pb;
@@ -73,9 +74,9 @@ static void two_programs(void **state)
 	assert_near(curve_pct(d.d), 2.81672, 1e-5);
 	assert_near(curve_pct(d.lo), 2.25847, 1e-5);
 	assert_near(curve_pct(d.hi), 3.37801, 1e-5);
-	assert_near(d.p_gain, 0.2607, 5e-4);
-	assert_true(d.p_loss < 1e-12);
-	assert_int_equal(d.verdict, CMP_TRIVIAL_GAIN);
+	assert_near(d.dlo, 0.0232088, 1e-7);
+	assert_near(d.dhi, 0.0323468, 1e-7);
+	assert_int_equal(d.decision, CMP_SOME_GAIN);
 
 	cmp_muscle(&prof, &untrained10, 0.95, aa.row[SD_TRICEPS].dose.fractional,
 		   ab.row[SD_TRICEPS].dose.fractional, &d);
@@ -84,21 +85,19 @@ static void two_programs(void **state)
 	assert_near(d.d, 0.04, 1e-12);
 	assert_near(d.se, 0.004, 1e-12);
 	assert_near(d.lo, 0.04 - 1.959964 * 0.004, 1e-7);
-	assert_int_equal(d.verdict, CMP_WORTHWHILE_GAIN);
+	assert_near(d.dlo, 0.0334206, 1e-7);
+	assert_int_equal(d.decision, CMP_CLEAR_GAIN);
 
-	/* The other way round: a loss of the same size, and the probabilities swap. */
+	/* The other way round: a loss of the same size. */
 	cmp_muscle(&prof, &untrained10, 0.95, 8, 3, &d);
 	assert_near(d.d, -1.0 / 36, 1e-12);
-	assert_near(d.p_loss, 0.2607, 5e-4);
-	assert_true(d.p_gain < 1e-12);
-	assert_int_equal(d.verdict, CMP_TRIVIAL_LOSS);
+	assert_int_equal(d.decision, CMP_SOME_LOSS);
 
-	/* Untrained muscles in both: nothing to tell apart. */
+	/* Untrained muscles in both: a difference of exactly 0, so equivalent. */
 	cmp_muscle(&prof, &untrained10, 0.95, aa.row[SD_CALVES].dose.fractional,
 		   ab.row[SD_CALVES].dose.fractional, &d);
 	assert_near(d.d, 0, 0);
-	assert_near(d.p_gain, 0, 0);
-	assert_int_equal(d.verdict, CMP_NO_DIFFERENCE);
+	assert_int_equal(d.decision, CMP_EQUIVALENT);
 
 	audit_free(&aa);
 	audit_free(&ab);
@@ -106,56 +105,97 @@ static void two_programs(void **state)
 	prog_free(&pb);
 }
 
-/* The heterogeneity cancels and so do the moderators: a trained athlete on a 6-week block
- * gets the same difference as an untrained one on 10 weeks. */
-static void context_cancels(void **state)
+/* Block length and status change the dose slope (the weeks:dose and trained:dose terms), so
+ * they no longer cancel in a difference: trained at 8 weeks the slope is -0.105, not -0.2. */
+static void context_matters(void **state)
 {
-	struct sd_covars other = { 6, 1 };
+	struct sd_covars other = { 8, 1 };
 	struct cmp_diff a, b;
 	(void)state;
 	cmp_muscle(&prof, &untrained10, 0.95, 3, 8, &a);
 	cmp_muscle(&prof, &other, 0.95, 3, 8, &b);
-	assert_near(a.d, b.d, 1e-15);
-	assert_near(a.se, b.se, 1e-15);
+	assert_near(a.d, 1.0 / 36, 1e-12);
+	assert_near(b.d, -0.105 * (1.0 / 9 - 1.0 / 4), 1e-12);
+	/* Its variance: dz = df (0, 1, 0, -2, 0, 1) with df = 1/9 - 1/4 = -5/36 (terms intercept,
+	 * dose, weeks, weeks:dose, trained, trained:dose); the dose, weeks:dose and trained:dose
+	 * entries are uncorrelated, so df^2 (0.0004 + 4 (0.000004) + 0.0004) by hand. */
+	double df = 1.0 / 9 - 1.0 / 4;
+	assert_near(b.se * b.se, df * df * (0.0004 + 4 * 0.000004 + 0.0004), 1e-15);
 }
 
-/* A vaguer dose coefficient (SE 0.2): the triceps difference of 0.04 is beyond the SWC but
- * its interval includes 0. P(d > SWC) = Phi((0.04 - 0.0295588)/0.04) = Phi(0.26103); table
- * (Abramowitz & Stegun 1964, Table 26.1, 4 digits): Phi(0.26) = 0.6026, Phi(0.27) = 0.6064,
- * interpolated 0.6030. */
-static void unsure(void **state)
+/* One athlete at two doses under a profile with random slopes: d = dz'b + u1 (f_B - f_A), so
+ * Var(d) = dz'V dz + (f_B - f_A)^2 tau2_slope. Hand computation for chest 3 -> 8, untrained,
+ * 10 weeks, tau2_slope = 0.0009: f_B - f_A = 1/9 - 1/4 = -5/36,
+ *   dz'V dz = (25/1296) 0.0004 = 0.00000771605,  slope part (25/1296) 0.0009 = 0.0000173611,
+ *   se = sqrt(0.0000250772) = 0.00500771, 1.80 times the 1/360 = 0.00277778 without slopes.
+ * The intercept variance tau2 and its covariance with the slope cancel (same athlete). */
+static void slopes_same_athlete(void **state)
 {
-	struct sd_profile vague = prof;
+	struct sd_profile s = prof;
 	struct cmp_diff d;
-	int n = vague.nterms;
 	(void)state;
-	vague.vcov[1 * n + 1] = 0.04;
-	vague.vcov[0 * n + 1] = vague.vcov[1 * n + 0] = 0;
-	cmp_muscle(&vague, &untrained10, 0.95, 1.5, 4, &d);
-	assert_near(d.se, 0.04, 1e-12);
-	assert_true(d.lo < 0 && d.hi > 0);
-	assert_near(d.p_gain, 0.6030, 5e-4);
-	assert_int_equal(d.verdict, CMP_UNSURE_GAIN);
+	s.slopes = 1;
+	s.tau2_slope = 0.0009;
+	s.cov_slope = -0.0012;
+	cmp_muscle(&s, &untrained10, 0.95, 3, 8, &d);
+	assert_near(d.d, 1.0 / 36, 1e-12);
+	assert_near(d.se * d.se, 25.0 / 1296 * (0.0004 + 0.0009), 1e-15);
+	assert_near(d.se, 0.00500771, 1e-8);
+	assert_near(d.lo, 1.0 / 36 - 1.959963985 * 0.00500771, 1e-7);
+	/* 90% decision interval [0.0195408, 0.0360148]: above 0, past the SWC: some-gain still,
+	 * but the interval is 1.8 times as wide as without slopes. */
+	assert_near(d.dlo, 1.0 / 36 - 1.644853627 * 0.00500771, 1e-7);
+	assert_int_equal(d.decision, CMP_SOME_GAIN);
 }
 
-/* The verdict table, and P(d > t) under Student's t: with d = 0, se = 1 and t = -2.228139,
- * P = 0.975 for 10 degrees of freedom (t table: Fisher & Yates 1963). */
-static void verdicts_and_t(void **state)
+/* The decision table on constructed decision intervals, SWC 0.03 (Schuirmann 1987; Lakens
+ * 2017: equivalence when the 1 - 2 alpha interval lies wholly inside the bounds). */
+static void decisions(void **state)
 {
 	double swc = 0.03;
 	(void)state;
-	assert_int_equal(cmp_classify(0.05, 0.01, 0.09, swc), CMP_WORTHWHILE_GAIN);
-	assert_int_equal(cmp_classify(0.05, -0.01, 0.11, swc), CMP_UNSURE_GAIN);
-	assert_int_equal(cmp_classify(0.02, 0.01, 0.03, swc), CMP_TRIVIAL_GAIN);
-	assert_int_equal(cmp_classify(0.01, -0.01, 0.03, swc), CMP_NO_DIFFERENCE);
-	assert_int_equal(cmp_classify(-0.02, -0.03, -0.01, swc), CMP_TRIVIAL_LOSS);
-	assert_int_equal(cmp_classify(-0.05, -0.11, 0.01, swc), CMP_UNSURE_LOSS);
-	assert_int_equal(cmp_classify(-0.05, -0.09, -0.01, swc), CMP_WORTHWHILE_LOSS);
-	assert_string_equal(cmp_verdict_name(CMP_WORTHWHILE_GAIN), "worthwhile-gain");
-	assert_string_equal(cmp_verdict_text(CMP_NO_DIFFERENCE), "no clear difference");
-	assert_near(cmp_prob_above(0, 1, -2.228139, 10), 0.975, 1e-6);
-	assert_near(cmp_prob_above(0, 1, -1.959964, 0), 0.975, 1e-6);
-	assert_near(cmp_prob_above(0.5, 0, 0.4, 0), 1, 0);
+	assert_int_equal(cmp_decide(0.04, 0.06, swc), CMP_CLEAR_GAIN);
+	assert_int_equal(cmp_decide(-0.06, -0.04, swc), CMP_CLEAR_LOSS);
+	assert_int_equal(cmp_decide(-0.01, 0.02, swc), CMP_EQUIVALENT);
+	assert_int_equal(cmp_decide(0.005, 0.02, swc), CMP_EQUIVALENT);   /* not 0, but trivial */
+	assert_int_equal(cmp_decide(0.01, 0.05, swc), CMP_SOME_GAIN);
+	assert_int_equal(cmp_decide(-0.05, -0.01, swc), CMP_SOME_LOSS);
+	assert_int_equal(cmp_decide(-0.01, 0.05, swc), CMP_UNCLEAR);
+	assert_int_equal(cmp_decide(-0.05, 0.05, swc), CMP_UNCLEAR);
+	/* The bounds themselves are outside "inside": equivalence needs both one-sided tests. */
+	assert_int_equal(cmp_decide(-0.03, 0.02, swc), CMP_UNCLEAR);
+	assert_int_equal(cmp_decide(0.03, 0.05, swc), CMP_SOME_GAIN);
+	assert_string_equal(cmp_decision_name(CMP_CLEAR_GAIN), "clear-gain");
+	assert_string_equal(cmp_decision_name(CMP_EQUIVALENT), "equivalent");
+	assert_near(cmp_decision_level(0.95), 0.90, 1e-12);
+	assert_near(cmp_decision_level(0.99), 0.98, 1e-12);
+}
+
+/* Equivalence is read from the 90 % interval, not the 95 % one: a linear profile with dose
+ * slope 0.01 and SE 0.0025, doses 0 -> 2: d = 0.02, se = 0.005.
+ *   95 %: 0.02 -+ 1.959964 (0.005) = [0.0102, 0.0298]: reaches past the SWC 0.0295588
+ *   90 %: 0.02 -+ 1.644854 (0.005) = [0.011776, 0.028224]: wholly inside: equivalent.
+ * With SE 0.006 the 90 % interval [0.010131, 0.029869] reaches past it: some-gain. */
+static void tost_uses_90(void **state)
+{
+	struct sd_profile s = prof;
+	struct cmp_diff d;
+	int n = s.nterms;
+	(void)state;
+	s.form = SD_FORM_LINEAR;
+	s.beta[1] = 0.01;
+	s.vcov[1 * n + 1] = 0.0025 * 0.0025;
+	cmp_muscle(&s, &untrained10, 0.95, 0, 2, &d);
+	assert_near(d.d, 0.02, 1e-15);
+	assert_near(d.se, 0.005, 1e-15);
+	assert_true(d.hi > s.swc);
+	assert_near(d.dlo, 0.011776, 1e-6);
+	assert_near(d.dhi, 0.028224, 1e-6);
+	assert_int_equal(d.decision, CMP_EQUIVALENT);
+	s.vcov[1 * n + 1] = 0.003 * 0.003;
+	cmp_muscle(&s, &untrained10, 0.95, 0, 2, &d);
+	assert_near(d.dhi, 0.029869, 1e-6);
+	assert_int_equal(d.decision, CMP_SOME_GAIN);
 }
 
 static void pairs_and_totals(void **state)
@@ -196,9 +236,10 @@ int main(void)
 {
 	const struct CMUnitTest tests[] = {
 		cmocka_unit_test(two_programs),
-		cmocka_unit_test(context_cancels),
-		cmocka_unit_test(unsure),
-		cmocka_unit_test(verdicts_and_t),
+		cmocka_unit_test(context_matters),
+		cmocka_unit_test(slopes_same_athlete),
+		cmocka_unit_test(decisions),
+		cmocka_unit_test(tost_uses_90),
 		cmocka_unit_test(pairs_and_totals),
 	};
 	return cmocka_run_group_tests(tests, setup, teardown);

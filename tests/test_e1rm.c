@@ -104,6 +104,40 @@ static void monotone(void **state)
 	}
 }
 
+/* Where Brzycki stands among the seven equations (the man page says it): its estimate's rank
+ * from the lowest, by reps, computed from each published formula (sources in e1rm.c). At 3
+ * reps, for instance, Brzycki 36/34 = 1.0588 against Lander 1.0720 and O'Conner 1.075; at 5 it
+ * ties O'Conner at 1.125; at 10 it equals Epley, 1.3333. */
+static int rank_of_brzycki(int reps, int *ties)
+{
+	double b = e1rm_raw(E1RM_BRZYCKI, 1, reps);
+	int below = 0;
+	*ties = 0;
+	for (int f = 0; f < E1RM_NFORMULAS; f++) {
+		double v = e1rm_raw(f, 1, reps);
+		if (f == E1RM_BRZYCKI)
+			continue;
+		if (fabs(v - b) < 1e-12)
+			(*ties)++;
+		else if (v < b)
+			below++;
+	}
+	return below + 1;
+}
+
+static void brzycki_position(void **state)
+{
+	static const int want[][2] = { { 2, 1 }, { 3, 1 }, { 4, 1 }, { 5, 1 }, { 6, 2 }, { 7, 2 },
+				       { 8, 3 }, { 9, 3 }, { 10, 4 } };
+	int ties;
+	(void)state;
+	for (size_t i = 0; i < sizeof want / sizeof want[0]; i++) {
+		assert_int_equal(rank_of_brzycki(want[i][0], &ties), want[i][1]);
+		assert_int_equal(ties, want[i][0] == 5 || want[i][0] == 10);   /* O'Conner, Epley */
+	}
+	assert_near(e1rm_raw(E1RM_BRZYCKI, 1, 3), 36.0 / 34, 1e-15);
+}
+
 int main(void)
 {
 	const struct CMUnitTest tests[] = {
@@ -112,6 +146,7 @@ int main(void)
 		cmocka_unit_test(warns_above_ten_refuses_above_twenty),
 		cmocka_unit_test(names),
 		cmocka_unit_test(monotone),
+		cmocka_unit_test(brzycki_position),
 	};
 	return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -657,6 +657,10 @@ static void test_profile(void **state)
 	assert_int_equal(mr_to_profile(&f, SD_FORM_RECIPROCAL, m.names, &p, &e), 0);
 	p.dose_min = m.dose_min;
 	p.dose_max = m.dose_max;
+	/* Every moderator needs an evidence range (fit --write takes the data's). */
+	p.range[0] = (struct sd_range){ "weeks", 6, 16 };
+	p.range[1] = (struct sd_range){ "trained", 0, 1 };
+	p.nranges = 2;
 	assert_int_equal(profile_validate(&p, &e), 0);
 	assert_int_equal(p.nterms, 4);
 	assert_string_equal(p.term[0], "intercept");

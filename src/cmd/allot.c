@@ -480,7 +480,9 @@ static int build_problem(struct sd_ctx *ctx, struct plan *pl, struct sd_err *e)
 	p->max_sets = (int)a->max_sets;
 	p->max_exercises = X;
 	p->form = ctx->profile.form;
-	p->b_dose = ctx->profile.beta[1];
+	/* The dose slope for this athlete's status and block length ("m:dose" terms included). */
+	struct sd_covars cov = cmd_covars(ctx, pl->have_from ? pl->from.weeks : 0);
+	p->b_dose = curve_dose_coef(&ctx->profile, &cov);
 	p->node_limit = a->node_limit;
 	p->tolerance = a->tolerance;
 	p->cold = a->cold;

@@ -71,7 +71,8 @@ const struct sd_cmd *cmd_find(const char *name, struct sd_err *e);
 struct sd_covars cmd_covars(const struct sd_ctx *ctx, int program_weeks);
 /* The smallest worthwhile change on the lnRR scale (profile's, or --swc). */
 double cmd_swc(const struct sd_ctx *ctx);
-/* Standard cautions printed under advice in table output. */
+/* Under advice in table output: the profile's provenance line (when one is loaded) and the
+ * standard cautions. */
 void cmd_print_caution(struct sd_ctx *ctx);
 
 #endif

@@ -28,6 +28,10 @@ double cmd_swc(const struct sd_ctx *ctx)
 
 void cmd_print_caution(struct sd_ctx *ctx)
 {
-	if (ctx->opt.format == SD_FMT_TABLE)
-		fprintf(ctx->out, "\n%s\n", aout_caution);
+	if (ctx->opt.format != SD_FMT_TABLE)
+		return;
+	fputc('\n', ctx->out);
+	if (ctx->profile.name[0])   /* loaded: the numbers above come from it */
+		aout_profile_line(ctx->out, &ctx->profile);
+	fprintf(ctx->out, "%s\n", aout_caution);
 }

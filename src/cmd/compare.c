@@ -1,5 +1,5 @@
 /* compare: programs side by side per muscle for one athlete, with the difference between them,
- * its interval, the probability it exceeds the SWC and a verdict; totals per program. */
+ * its interval and an interval-based decision against the SWC; totals per program. */
 #include <getopt.h>
 #include <stdlib.h>
 #include <string.h>
@@ -139,13 +139,18 @@ const struct sd_cmd cmd_compare = {
 		 "  --session-cap N  warn when a muscle gets more than N fractional sets in one session\n"
 		 "                   (default 10; common practice, no source)\n"
 		 "Per muscle: each program's weekly fractional sets and predicted gain; per pair the\n"
-		 "difference (second minus first, percent as a ratio of gains) with its interval, the\n"
-		 "probability it exceeds the SWC (normal, or t with the profile's df) and a verdict:\n"
-		 "worthwhile (beyond the SWC, interval excludes 0), real but trivial (interval excludes\n"
-		 "0, within the SWC), unsure (beyond the SWC, interval includes 0) or no clear\n"
-		 "difference. All programs are taken for the same athlete and block length, so the\n"
-		 "between-athlete heterogeneity cancels in a difference: its interval uses only the\n"
-		 "profile's coefficient covariance, d = b_dose (f(x2) - f(x1)).",
+		 "difference (second minus first, percent as a ratio of gains) with its interval (at\n"
+		 "--level) and a decision read from the 1 - 2 alpha interval (90% for the usual 95%),\n"
+		 "each a one-sided test at alpha = 1 - level:\n"
+		 "  clear-gain   wholly above +SWC        clear-loss   wholly below -SWC\n"
+		 "  equivalent   wholly inside +-SWC (two one-sided tests; Schuirmann 1987)\n"
+		 "  some-gain    above 0, reaching inside the SWC (some-loss: below 0)\n"
+		 "  unclear      includes 0 and reaches past the SWC\n"
+		 "All programs are taken for one athlete at one block length and status, so the\n"
+		 "athlete's level cancels in a difference. With a profile that has random slopes the\n"
+		 "athlete's own dose slope does not: the interval adds (f(x2) - f(x1))^2 tau2_slope to\n"
+		 "the coefficient covariance. With a profile without random slopes (the bundled one)\n"
+		 "the interval assumes every athlete shares the curve's slope.",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_compare,
 };

@@ -2,12 +2,15 @@
  * muscles marked on it. */
 #include <getopt.h>
 #include <langinfo.h>
+#include <math.h>
 #include <stdlib.h>
 #include <string.h>
 
 #include <cjson/cJSON.h>
 
 #include "../core/audit.h"
+#include "../io/audit_out.h"
+#include "../io/jsonout.h"
 #include "../io/program_io.h"
 #include "../io/table.h"
 #include "../plot/textplot.h"
@@ -26,12 +29,15 @@ static int unicode_ok(void)
 
 static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, struct sd_err *e)
 {
-	static const char *const heads[] = { "sets", "gain%", "ci_low", "ci_high", "pi_low",
-					     "pi_high", "+1set%", "<zone" };
+	static const char *const heads[] = { "sets", "gain%", "curve_lo", "curve_hi", "group_lo",
+					     "group_hi", "athlete_lo", "athlete_hi", "+1set%",
+					     "+1set_lo", "+1set_hi", "<zone" };
 	const struct sd_profile *p = &ctx->profile;
-	struct sd_table *t = tbl_new(8, heads);
+	struct sd_table *t = tbl_new(12, heads);
 	double plateau = curve_plateau(p, cov, 1.0);
 	cJSON *arr = NULL;
+	char note[240];
+	int csv = ctx->opt.format == SD_FMT_CSV;
 
 	if (!t)
 		return sd_fail(e, "out of memory");
@@ -39,56 +45,73 @@ static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, s
 		tbl_free(t);
 		return sd_fail(e, "out of memory");
 	}
+	curve_context_note(p, cov, note, sizeof note);
+	/* The range is at most SD_DOSE_LIMIT wide and step at least 0.1: at most 2,001 rows. */
 	int n = (int)((p->dose_max - p->dose_min) / step + 1e-9);
 	for (int i = 0; i <= n; i++) {
 		double x = p->dose_min + i * step;
 		struct sd_point pt;
-		struct sd_marginal mg;
+		struct sd_plus1 mg;
 		curve_eval(p, cov, x, ctx->opt.level, &pt);
-		curve_marginal(p, cov, x, ctx->opt.level, &mg);
+		curve_plus1(p, cov, x, ctx->opt.level, &mg);
 		if (arr) {
 			cJSON *o = cJSON_CreateObject();
 			cJSON_AddNumberToObject(o, "sets", x);
-			cJSON_AddNumberToObject(o, "lnrr", pt.y);
-			cJSON_AddNumberToObject(o, "gain_pct", curve_pct(pt.y));
-			cJSON_AddNumberToObject(o, "ci_low", curve_pct(pt.ci_lo));
-			cJSON_AddNumberToObject(o, "ci_high", curve_pct(pt.ci_hi));
-			cJSON_AddNumberToObject(o, "pi_low", curve_pct(pt.pi_lo));
-			cJSON_AddNumberToObject(o, "pi_high", curve_pct(pt.pi_hi));
-			cJSON_AddNumberToObject(o, "marginal_pct", mg.pct);
+			json_num(o, "lnrr", pt.y, 6);
+			json_num(o, "gain_pct", curve_pct(pt.y), 4);
+			json_bands(o, &pt, 4);
+			json_num(o, "plus1_pct", mg.pct, 4);
+			json_num(o, "plus1_low", mg.lo, 4);
+			json_num(o, "plus1_high", mg.hi, 4);
 			cJSON_AddStringToObject(o, "zone", zone_name(curve_zone(p, plateau, x)));
 			cJSON_AddItemToArray(arr, o);
 			continue;
 		}
 		tbl_row(t);
 		tbl_set(t, 0, "%g", x);
-		tbl_set(t, 1, "%.1f", curve_pct(pt.y));
-		tbl_set(t, 2, "%.1f", curve_pct(pt.ci_lo));
-		tbl_set(t, 3, "%.1f", curve_pct(pt.ci_hi));
-		tbl_set(t, 4, "%.1f", curve_pct(pt.pi_lo));
-		tbl_set(t, 5, "%.1f", curve_pct(pt.pi_hi));
-		tbl_set(t, 6, "%.2f", mg.pct);
-		tbl_set(t, 7, "%s", zone_name(curve_zone(p, plateau, x)));
+		tbl_set(t, 1, csv ? "%.3f" : "%.1f", curve_pct(pt.y));
+		tbl_set(t, 2, csv ? "%.3f" : "%.1f", curve_pct(pt.ci_lo));
+		tbl_set(t, 3, csv ? "%.3f" : "%.1f", curve_pct(pt.ci_hi));
+		tbl_set(t, 4, csv ? "%.3f" : "%.1f", curve_pct(pt.group_lo));
+		tbl_set(t, 5, csv ? "%.3f" : "%.1f", curve_pct(pt.group_hi));
+		tbl_set(t, 6, csv ? "%.3f" : "%.1f", curve_pct(pt.ath_lo));
+		tbl_set(t, 7, csv ? "%.3f" : "%.1f", curve_pct(pt.ath_hi));
+		tbl_set(t, 8, csv ? "%.4f" : "%.2f", mg.pct);
+		tbl_set(t, 9, csv ? "%.4f" : "%.2f", mg.lo);
+		tbl_set(t, 10, csv ? "%.4f" : "%.2f", mg.hi);
+		tbl_set(t, 11, "%s", zone_name(curve_zone(p, plateau, x)));
 	}
 	if (arr) {
 		cJSON *root = cJSON_CreateObject();
-		cJSON_AddStringToObject(root, "profile", p->name);
+		json_profile(root, p);
 		cJSON_AddStringToObject(root, "status", cov->trained >= 0.5 ? "trained" : "untrained");
 		cJSON_AddNumberToObject(root, "weeks", cov->weeks);
+		json_evidence(root, p, cov);
 		cJSON_AddNumberToObject(root, "level", ctx->opt.level);
 		cJSON_AddNumberToObject(root, "plateau", plateau);
+		cJSON_AddStringToObject(root, "bands", aout_bands_legend);
+		if (note[0])
+			cJSON_AddStringToObject(root, "warning", note);
 		cJSON_AddItemToObject(root, "points", arr);
-		char *s = cJSON_Print(root);
-		if (s)
-			fprintf(ctx->out, "%s\n", s);
-		free(s);
+		cJSON_AddStringToObject(root, "caution", aout_caution);
+		char *str = cJSON_Print(root);
+		if (str)
+			fprintf(ctx->out, "%s\n", str);
+		free(str);
 		cJSON_Delete(root);
 	} else {
 		if (ctx->opt.format == SD_FMT_TABLE)
 			fprintf(ctx->out, "%s; %s, %g-week block; %.0f%% intervals; plateau at %g weekly "
-				"fractional sets\n\n", p->name, cov->trained >= 0.5 ? "trained" : "untrained",
-				cov->weeks, ctx->opt.level * 100, plateau);
-		tbl_print(t, ctx->out, ctx->opt.format == SD_FMT_CSV);
+				"fractional sets\n%s%s%s\n", p->name, cov->trained >= 0.5 ? "trained" :
+				"untrained", cov->weeks, ctx->opt.level * 100, plateau,
+				note[0] ? "warning: " : "", note, note[0] ? "\n" : "");
+		tbl_print(t, ctx->out, csv);
+		if (ctx->opt.format == SD_FMT_TABLE) {
+			fputc('\n', ctx->out);
+			aout_bands_text(ctx->out, (int)lround(ctx->opt.level * 100));
+			fprintf(ctx->out, "+1set: percentage points one more weekly set adds on the "
+				"average curve, with its interval.\n");
+		}
 	}
 	tbl_free(t);
 	return 0;
@@ -131,9 +154,10 @@ static int print_plot(struct sd_ctx *ctx, const struct sd_covars *cov, const cha
 	if (!rc) {
 		fputc('\n', ctx->out);
 		tplot_print(ctx->out, tp, unicode);
-		fprintf(ctx->out, "%s mean   %s %.0f%% confidence band   %s %.0f%% prediction band\n",
-			unicode ? "\u2588" : "#", unicode ? "\u2592" : ":", ctx->opt.level * 100,
-			unicode ? "\u2591" : ".", ctx->opt.level * 100);
+		fprintf(ctx->out, "%s mean   %s %.0f%% the average curve   %s %.0f%% a new group or "
+			"study   %s %.0f%% one athlete\n", unicode ? "\u2588" : "#",
+			unicode ? "\u2593" : "=", ctx->opt.level * 100, unicode ? "\u2592" : ":",
+			ctx->opt.level * 100, unicode ? "\u2591" : ".", ctx->opt.level * 100);
 	}
 	tplot_free(tp);
 	return rc;
@@ -192,7 +216,7 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 
 const struct sd_cmd cmd_curve = {
 	.name = "curve",
-	.summary = "the dose-response curve with confidence and prediction bands",
+	.summary = "the dose-response curve with its three bands (curve, group, athlete)",
 	.usage = "curve [--program FILE] [--step SETS] [--no-plot]\n"
 		 "  --program FILE  mark the program's muscles on the plot\n"
 		 "  --step SETS     table step in weekly fractional sets (default 1)\n"

@@ -391,6 +391,51 @@ static void today(char *buf, size_t n)
 	strftime(buf, n, "%Y-%m-%d", &tm);
 }
 
+/* The evidence range of each moderator: the values the data hold. */
+static int data_ranges(const struct ef_model *mod, struct sd_profile *p, struct sd_err *e)
+{
+	int n = mod->d.n, np = mod->d.p;
+
+	p->nranges = 0;
+	for (int j = 2; j < np; j++) {
+		struct sd_range *r = &p->range[p->nranges++];
+		if (strchr(mod->names[j], ':') || strlen(mod->names[j]) >= sizeof r->var)
+			return sd_fail(e, "cannot write a profile with moderator '%s': a name has at most "
+				       "%zu characters and no ':' (which marks a term times the dose)",
+				       mod->names[j], sizeof r->var - 1);
+		snprintf(r->var, sizeof r->var, "%s", mod->names[j]);
+		r->lo = INFINITY;
+		r->hi = -INFINITY;
+		for (int i = 0; i < n; i++) {
+			double x = mod->d.X[(size_t)i * (size_t)np + (size_t)j];
+			r->lo = fmin(r->lo, x);
+			r->hi = fmax(r->hi, x);
+		}
+	}
+	return 0;
+}
+
+/* Study-level effect sizes say nothing about how athletes under one programme differ, so the
+ * between-athlete variance is copied from the active profile (the bundled one by default), and
+ * the written profile says so. */
+static int athlete_from_default(const struct sd_ctx *ctx, struct sd_profile *p, struct sd_err *e)
+{
+	struct sd_profile d;
+	char path[1200];
+
+	if (ctx->opt.profile_path)
+		snprintf(path, sizeof path, "%s", ctx->opt.profile_path);
+	else
+		snprintf(path, sizeof path, "%s/strength.ini", ctx->datadir);
+	if (profile_load(path, &d, e))
+		return sd_wrap(e, "the between-athlete variance is copied from the active profile");
+	p->athlete_var = d.athlete_var;
+	snprintf(p->athlete_source, sizeof p->athlete_source, "Copied from profile '%s', not "
+		 "estimated: study-level effect sizes cannot estimate the spread between athletes "
+		 "under one programme (see that profile's athlete_source).", d.name);
+	return 0;
+}
+
 static int write_profile(struct sd_ctx *ctx, const char *path, const char *out,
 			 const char *name, const struct mrm *m, const struct ef_model *mod,
 			 const struct mr_fit *f, struct sd_err *e)
@@ -399,7 +444,8 @@ static int write_profile(struct sd_ctx *ctx, const char *path, const char *out,
 	char date[32], desc[768], tmp[1100];
 	FILE *fp;
 
-	if (mr_to_profile(f, m->spec.form, mod->names, &p, e))
+	if (mr_to_profile(f, m->spec.form, mod->names, &p, e) || data_ranges(mod, &p, e) ||
+	    athlete_from_default(ctx, &p, e))
 		return -1;
 	snprintf(p.name, sizeof p.name, "%s", name);
 	snprintf(p.outcome, sizeof p.outcome, "1RM strength");
@@ -407,13 +453,20 @@ static int write_profile(struct sd_ctx *ctx, const char *path, const char *out,
 	p.dose_max = mod->dose_max;
 	if (ctx->opt.swc_set)
 		p.swc = log1p(ctx->opt.swc_pct / 100.0);
+	p.basis = SD_BASIS_FITTED;
 	today(date, sizeof date);
+	snprintf(p.summary, sizeof p.summary, "fitted by setdose fit to '%.60s' (%d effects, %d "
+		 "studies) on %s", basename_of(path), f->n, f->nstudy, date);
 	mrm_describe(m, desc, sizeof desc);
 	snprintf(p.provenance, sizeof p.provenance,
 		 "Fitted by setdose fit from '%s' on %s: %d effects in %d studies, doses %g to %g "
 		 "weekly fractional sets.\nModel: multilevel meta-regression on lnRR, %s.\n"
 		 "logLik %.6f, AIC %.4f, BIC %.4f; tau2 %.6g, sigma2 %.6g%s; %s.\n"
-		 "Coefficients are raw (centre 0); intervals use %s quantiles.",
+		 "Coefficients are raw (centre 0); intervals use %s quantiles. Each moderator's "
+		 "evidence range is the values in the data.\n"
+		 "Not estimable from these data: the between-athlete variance (copied, see "
+		 "athlete_source) and any dependence of the slope on a moderator (no 'NAME:dose' "
+		 "terms are fitted).",
 		 basename_of(path), date, f->n, f->nstudy, mod->dose_min, mod->dose_max, desc,
 		 f->loglik, f->aic, f->bic, f->tau2, f->sigma2, f->slopes ? ", random slopes" : "",
 		 f->converged ? "converged" : "not converged", f->df ? "t" : "normal");
@@ -435,6 +488,9 @@ static int write_profile(struct sd_ctx *ctx, const char *path, const char *out,
 	if (ctx->opt.format == SD_FMT_TABLE) {
 		fprintf(ctx->out, "\nwrote profile '%s' (%s form, %d terms); use it with --profile %s\n",
 			out, form_name(p.form), p.nterms, out);
+		fprintf(ctx->out, "not estimable from study-level effects: the between-athlete "
+			"variance (%.6g copied from the active profile, so the 'one athlete' band is "
+			"that profile's assumption)\n", p.athlete_var);
 		for (int j = 2; j < f->p; j++)
 			if (strcmp(mod->names[j], "weeks") && strcmp(mod->names[j], "trained"))
 				fprintf(ctx->out, "note: moderator '%s' is not an athlete covariate (weeks, "
@@ -520,7 +576,10 @@ const struct sd_cmd cmd_fit = {
 		 MRM_USAGE "\n"
 		 "  --forms all        fit every dose form by ML; rank by AIC, BIC and\n"
 		 "                     leave-one-study-out prediction error\n"
-		 "  --write FILE       write the fit as a dose-response profile\n"
+		 "  --write FILE       write the fit as a dose-response profile (moderator ranges\n"
+		 "                     from the data; the between-athlete variance, which\n"
+		 "                     study-level effects cannot estimate, copied from the active\n"
+		 "                     profile and marked so)\n"
 		 "  --name NAME        the written profile's name (default fitted)\n"
 		 "  (global --swc PCT sets the written profile's SWC; default 3%)",
 	.flags = 0,

@@ -12,11 +12,15 @@ static void show(struct sd_ctx *ctx, const struct sd_profile *p, const char *pat
 	FILE *f = ctx->out;
 	int n = p->nterms;
 
-	fprintf(f, "profile     %s (%s)\noutcome     %s, %s scale\ndose form   %s; evidence "
-		"%g to %g weekly fractional sets\nSWC         %.2f%% (lnRR %.6f)\nset weights "
-		"direct %g, indirect %g\nquantiles   %s\n\n", p->name, path, p->outcome, p->scale,
-		form_name(p->form), p->dose_min, p->dose_max, curve_pct(p->swc), p->swc,
-		p->w_direct, p->w_indirect, p->df ? "t" : "normal");
+	fprintf(f, "profile     %s (%s)\nbasis       %s: %s\noutcome     %s, %s scale\ndose form   "
+		"%s; evidence %g to %g weekly fractional sets\n", p->name, path, basis_name(p->basis),
+		p->summary, p->outcome, p->scale, form_name(p->form), p->dose_min, p->dose_max);
+	for (int i = 0; i < p->nranges; i++)
+		fprintf(f, "%-11s %g to %g (evidence range; outside it the value is held at the edge "
+			"and flagged)\n", p->range[i].var, p->range[i].lo, p->range[i].hi);
+	fprintf(f, "SWC         %.2f%% (lnRR %.6f)\nset weights direct %g, indirect %g\nquantiles   "
+		"%s\n\n", curve_pct(p->swc), p->swc, p->w_direct, p->w_indirect,
+		p->df ? "t" : "normal");
 	fprintf(f, "%-12s %12s %10s %10s\n", "term", "estimate", "SE", "centre");
 	for (int i = 0; i < n; i++)
 		fprintf(f, "%-12s %12.6f %10.6f %10g\n", p->term[i], p->beta[i],
@@ -32,11 +36,16 @@ static void show(struct sd_ctx *ctx, const struct sd_profile *p, const char *pat
 				sqrt(p->vcov[i * n + i] * p->vcov[j * n + j]));
 		fputc('\n', f);
 	}
-	fprintf(f, "\nheterogeneity: tau2 %.6g (between studies), sigma2 %.6g (within)\n", p->tau2,
-		p->sigma2);
+	fprintf(f, "\nthree levels of uncertainty:\n  the average curve    the covariance above\n"
+		"  a new group/study    + tau2 %.6g (between studies) + sigma2 %.6g (within)\n",
+		p->tau2, p->sigma2);
 	if (p->slopes)
-		fprintf(f, "random slopes: tau2_slope %.6g, correlation %.3f\n", p->tau2_slope,
-			p->tau2 > 0 && p->tau2_slope > 0 ? p->cov_slope / sqrt(p->tau2 * p->tau2_slope) : 0);
+		fprintf(f, "                       + random slopes: tau2_slope %.6g, correlation %.3f\n",
+			p->tau2_slope, p->tau2 > 0 && p->tau2_slope > 0 ?
+			p->cov_slope / sqrt(p->tau2 * p->tau2_slope) : 0);
+	fprintf(f, "  one athlete          + between-athlete variance %.6g (SD %.3f)\n"
+		"                       source: %s\n", p->athlete_var, sqrt(p->athlete_var),
+		p->athlete_source);
 	fprintf(f, "\nprovenance:\n%s\n", p->provenance);
 }
 
@@ -68,7 +77,8 @@ const struct sd_cmd cmd_profile = {
 	.name = "profile",
 	.summary = "show or check a dose-response profile",
 	.usage = "profile show|check [FILE]\n"
-		 "  show   coefficients, standard errors, correlations, heterogeneity, provenance\n"
+		 "  show   coefficients, standard errors, correlations, evidence ranges, the three\n"
+		 "         levels of uncertainty, provenance\n"
 		 "  check  validate FILE (default: the active profile); exit 1 with the problem",
 	.flags = 0,
 	.exec = exec_profile,

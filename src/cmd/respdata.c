@@ -66,7 +66,7 @@ static int add_row(struct resp_data *rs, const struct resp_row *r, struct sd_err
 	return 0;
 }
 
-/* All observations of one completed block. */
+/* All observations of one completed block (their fit comes once the variances are known). */
 static int block_rows(struct sd_ctx *ctx, int window, const struct resp_opts *ro,
 		      const struct db_block *b, struct resp_data *rs, struct sd_err *e)
 {
@@ -99,10 +99,9 @@ static int block_rows(struct sd_ctx *ctx, int window, const struct resp_opts *ro
 		r.weeks = cov.weeks;
 		snprintf(r.lift, sizeof r.lift, "%s", t[i].lift);
 		curve_eval(&ctx->profile, &cov, r.dose, ro->level, &r.pt);
-		r.ob.obs = log(r.post->e1rm_kg / r.pre->e1rm_kg);
-		r.ob.yhat = r.pt.y;
-		r.ob.sp = r.pt.sp;
-		resp_observe(&r.ob, ro, &r.fit);
+		r.beyond = r.pt.beyond;
+		resp_obs_set(&ctx->profile, &cov, r.dose, log(r.post->e1rm_kg / r.pre->e1rm_kg),
+			     resp_change_var(ro->test_sd, r.pre->reps, r.post->reps), b->id, &r.ob);
 		if (add_row(rs, &r, e))
 			goto done;
 	}
@@ -117,42 +116,139 @@ done:
 }
 
 
-int respd_load(struct sd_ctx *ctx, const char *athlete, long long only_block, int window,
-	       const struct resp_opts *ro, struct resp_data *d, struct sd_err *e)
+int respd_check_opts(const struct resp_opts *o, struct sd_err *e)
 {
-	struct resp_obs *obs = NULL;
-	int found = 0, rc = -1;
+	if (!isfinite(o->test_sd) || o->test_sd < 0 || o->test_sd > 1)
+		return sd_usage(e, "bad test error %g: expected a log-scale SD from 0 to 1", o->test_sd);
+	if (o->prior_sd != RESPD_PRIOR_PROFILE &&
+	    (!isfinite(o->prior_sd) || o->prior_sd <= 0 || o->prior_sd > 2))
+		return sd_usage(e, "bad prior SD %g: expected a log-scale SD above 0, at most 2",
+				o->prior_sd);
+	if (!(o->level > 0 && o->level < 1))
+		return sd_usage(e, "bad level %g: expected a number between 0 and 1", o->level);
+	return 0;
+}
 
-	memset(d, 0, sizeof *d);
-	if (db_athlete_get(ctx->db, athlete, &d->athlete, e))
-		return -1;
+/* The rows of one athlete: every completed block's observations. */
+static int athlete_rows(struct sd_ctx *ctx, long long only_block, int window,
+			const struct resp_opts *ro, struct resp_data *d, struct sd_err *e)
+{
+	int found = 0;
+
 	if (db_block_list(ctx->db, d->athlete.id, &d->b, &d->nb, e) ||
 	    db_test_list(ctx->db, d->athlete.id, NULL, &d->t, &d->nt, e))
-		goto done;
+		return -1;
 	for (int i = 0; i < d->nb; i++) {
 		const struct db_block *b = &d->b[i];
 		if (only_block && b->id == only_block) {
 			found = 1;
-			if (!b->end[0]) {
-				sd_fail(e, "block %lld is still open (end it with 'setdose block end %lld')",
-					only_block, only_block);
-				goto done;
-			}
+			if (!b->end[0])
+				return sd_fail(e, "block %lld is still open (end it with 'setdose block end "
+					       "%lld')", only_block, only_block);
 		}
 		if (b->end[0] && block_rows(ctx, window, ro, b, d, e))
+			return -1;
+	}
+	if (only_block && !found)
+		return sd_fail(e, "block %lld is not one of athlete '%s''s blocks", only_block,
+			       d->athlete.name);
+	return 0;
+}
+
+struct roster {
+	int n, cap;
+	int *athlete;
+	long long *block;
+	double *dev, *v;
+};
+
+static int roster_add(struct roster *r, int athlete, const struct resp_data *d, struct sd_err *e)
+{
+	if (r->n + d->n > r->cap) {
+		int cap = 2 * (r->n + d->n) + 16;
+		int *a = realloc(r->athlete, (size_t)cap * sizeof *a);
+		if (a)
+			r->athlete = a;
+		long long *b = realloc(r->block, (size_t)cap * sizeof *b);
+		if (b)
+			r->block = b;
+		double *dv = realloc(r->dev, (size_t)cap * sizeof *dv);
+		if (dv)
+			r->dev = dv;
+		double *v = realloc(r->v, (size_t)cap * sizeof *v);
+		if (v)
+			r->v = v;
+		if (!a || !b || !dv || !v)
+			return sd_fail(e, "out of memory");
+		r->cap = cap;
+	}
+	for (int i = 0; i < d->n; i++, r->n++) {
+		r->athlete[r->n] = athlete;
+		r->block[r->n] = d->v[i].ob.block;
+		r->dev[r->n] = d->v[i].ob.obs - d->v[i].ob.yhat;
+		r->v[r->n] = d->v[i].ob.v;
+	}
+	return 0;
+}
+
+/* Every athlete's observations, for the roster estimate of the variances. */
+static int roster_vars(struct sd_ctx *ctx, int window, const struct resp_opts *ro,
+		       struct resp_vars *vars, struct sd_err *e)
+{
+	struct db_athlete *as = NULL;
+	struct roster r = { 0 };
+	int na = 0, rc = -1;
+
+	if (db_athlete_list(ctx->db, &as, &na, e))
+		return -1;
+	for (int i = 0; i < na; i++) {
+		struct resp_data d;
+		memset(&d, 0, sizeof d);
+		d.athlete = as[i];
+		if (athlete_rows(ctx, 0, window, ro, &d, e) || roster_add(&r, i, &d, e)) {
+			respd_free(&d);
 			goto done;
+		}
+		respd_free(&d);
 	}
-	if (only_block && !found) {
-		sd_fail(e, "block %lld is not one of athlete '%s''s blocks", only_block, d->athlete.name);
+	struct resp_roster rr = { r.n, r.athlete, r.block, r.dev, r.v };
+	rc = resp_roster_vars(&rr, vars, e);
+done:
+	free(r.athlete);
+	free(r.block);
+	free(r.dev);
+	free(r.v);
+	free(as);
+	return rc;
+}
+
+int respd_load(struct sd_ctx *ctx, const char *athlete, long long only_block, int window,
+	       const struct resp_opts *ro, struct resp_data *d, struct sd_err *e)
+{
+	struct resp_obs *obs = NULL;
+	const struct sd_profile *p = &ctx->profile;
+	int rc = -1;
+
+	memset(d, 0, sizeof *d);
+	if (respd_check_opts(ro, e) || db_athlete_get(ctx->db, athlete, &d->athlete, e))
+		return -1;
+	if (athlete_rows(ctx, only_block, window, ro, d, e))
 		goto done;
-	}
+	resp_prior_vars(p, ro->prior_sd == RESPD_PRIOR_PROFILE ? p->athlete_var
+			: ro->prior_sd * ro->prior_sd, &d->vars);
+	if (ro->priors_only)
+		snprintf(d->vars.why, sizeof d->vars.why, "asked for (--priors)");
+	else if (roster_vars(ctx, window, ro, &d->vars, e))
+		goto done;
 	if (d->n && !(obs = malloc((size_t)d->n * sizeof *obs))) {
 		sd_fail(e, "out of memory");
 		goto done;
 	}
-	for (int i = 0; i < d->n; i++)
+	for (int i = 0; i < d->n; i++) {
+		resp_observe(p, &d->v[i].ob, &d->vars, ro->level, &d->v[i].fit);
 		obs[i] = d->v[i].ob;
-	rc = resp_personal(obs, d->n, ro, &d->personal, e);
+	}
+	rc = resp_personal(p, obs, d->n, &d->vars, ro->level, &d->personal, e);
 done:
 	free(obs);
 	if (rc)

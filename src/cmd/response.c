@@ -10,6 +10,8 @@
 
 #include "../core/response.h"
 #include "../core/units.h"
+#include "../io/audit_out.h"
+#include "../io/jsonout.h"
 #include "../io/recout.h"
 #include "respdata.h"
 
@@ -25,6 +27,7 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 {
 	static const struct option longopts[] = {
 		{ "block", required_argument, NULL, 'b' },
+		{ "priors", no_argument, NULL, 'P' },
 		{ "prior-sd", required_argument, NULL, 'p' },
 		{ "test-error", required_argument, NULL, 't' },
 		{ "window", required_argument, NULL, 'w' },
@@ -36,8 +39,9 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 	ra->block = 0;
 	ra->window = RESPD_WINDOW_DAYS;
 	ra->ro.test_sd = RESP_TEST_SD;
-	ra->ro.prior_sd = RESP_PRIOR_SD;
+	ra->ro.prior_sd = RESPD_PRIOR_PROFILE;
 	ra->ro.level = ctx->opt.level;
+	ra->ro.priors_only = 0;
 	optind = 0;
 	opterr = 0;
 	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
@@ -49,6 +53,9 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 		case 'p':
 			if (dbu_num("--prior-sd", optarg, 1e-4, 2, &ra->ro.prior_sd, e))
 				return -1;
+			break;
+		case 'P':
+			ra->ro.priors_only = 1;
 			break;
 		case 't':
 			if (dbu_num("--test-error", optarg, 0, 1, &ra->ro.test_sd, e))
@@ -65,13 +72,14 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 	}
 	if (optind != argc - 1)
 		return sd_usage(e, "usage: setdose %s", cmd_response.usage);
-	return resp_check_opts(&ra->ro, e);
+	return respd_check_opts(&ra->ro, e);
 }
 
 /* Table cells are rounded for reading; CSV and JSON keep enough digits to recompute. */
 static void set_row(struct sd_rec *r, const struct resp_row *w, int lb, int precise)
 {
 	const char *pct = precise ? "%.4f" : "%.1f";
+	char beyond[32];
 	int c = 0;
 
 	rec_set(r, c++, "%lld", w->block);
@@ -80,17 +88,43 @@ static void set_row(struct sd_rec *r, const struct resp_row *w, int lb, int prec
 	rec_set(r, c++, "%s", w->post->date);
 	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->pre->e1rm_kg, lb));
 	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->post->e1rm_kg, lb));
+	rec_set(r, c++, "%d", w->pre->reps);
+	rec_set(r, c++, "%d", w->post->reps);
 	rec_set(r, c++, pct, curve_pct(w->ob.obs));
 	rec_set(r, c++, precise ? "%.6f" : "%.4f", w->ob.obs);
 	rec_set(r, c++, precise ? "%.3f" : "%.1f", w->dose);
-	rec_set(r, c++, pct, curve_pct(w->pt.y));
+	rec_set(r, c++, "%g", w->weeks);
+	rec_set(r, c++, pct, curve_pct(w->ob.yhat));
 	rec_set(r, c++, pct, curve_pct(w->fit.lo));
 	rec_set(r, c++, pct, curve_pct(w->fit.hi));
 	rec_set(r, c++, precise ? "%.3f" : "%.0f", w->fit.pctile);
+	rec_set(r, c++, "%s", curve_beyond_names(w->beyond, beyond, sizeof beyond));
 }
 
-static const char *const heads[] = { "block", "<lift", "<pre", "<post", "e1rm_pre", "e1rm_post",
-	"change%", "lnRR", "dose", "predicted%", "pi_low%", "pi_high%", "percentile" };
+#define NCOLS 17
+static const char *const heads[NCOLS] = { "block", "<lift", "<pre", "<post", "e1rm_pre",
+	"e1rm_post", "reps_pre", "reps_post", "change%", "lnRR", "dose", "weeks", "predicted%",
+	"obs_lo%", "obs_hi%", "percentile", "<beyond" };
+
+static void print_vars(FILE *f, const struct sd_profile *p, const struct resp_data *rs,
+		       int from_profile)
+{
+	const struct resp_vars *v = &rs->vars;
+
+	if (v->estimated)
+		fprintf(f, "variances: estimated from the roster by REML (%d athletes with "
+			"observations, %d with two or more blocks, %d observations):\n  between "
+			"athletes %.5f (SD %.3f), between blocks %.5f (SD %.3f); the roster's mean "
+			"deviation from the curve %+.1f%% (SE %.4f lnRR)\n", v->roster_athletes,
+			v->roster_repeated, v->roster_obs, v->athlete, sqrt(v->athlete), v->block,
+			sqrt(v->block), curve_pct(v->mean_dev), v->mean_dev_se);
+	else
+		fprintf(f, "variances: the stated priors (%s):\n  between athletes %.5f (SD %.3f%s), "
+			"between blocks %.5f (SD %.3f: tau2 + sigma2 of profile '%s'%s)\n", v->why,
+			v->athlete, sqrt(v->athlete), from_profile ? ", the profile's one-athlete "
+			"variance" : ", --prior-sd", v->block, sqrt(v->block), p->name,
+			v->block_slope > 0 ? ", with its random slopes" : "");
+}
 
 static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const struct rargs *ra,
 			const struct resp_data *rs, const struct sd_rec *r, const struct resp_personal *pr,
@@ -100,25 +134,27 @@ static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const st
 
 	fprintf(ctx->out, "athlete %s (%s); profile %s; loads in %s\n", a->name,
 		a->trained ? "trained" : "untrained", ctx->profile.name, units_name(lb));
-	fprintf(ctx->out, "test error %.3f per 1RM test (log scale, --test-error); prior SD of "
-		"personal deviations %.3f, variance %.5f (--prior-sd);\ntests within %d days of a "
-		"block's start and end (--window)\n\n", ra->ro.test_sd, ra->ro.prior_sd,
-		ra->ro.prior_sd * ra->ro.prior_sd, ra->window);
+	fprintf(ctx->out, "test error %.3f per 1RM test (log scale, --test-error), more when pre and "
+		"post come from different rep counts;\ntests within %d days of a block's start and end "
+		"(--window)\n", ra->ro.test_sd, ra->window);
+	print_vars(ctx->out, &ctx->profile, rs, ra->ro.prior_sd == RESPD_PRIOR_PROFILE);
+	fputc('\n', ctx->out);
 	if (rec_rows(r))
 		rec_print(r, ctx->out);
 	else
 		fprintf(ctx->out, "no completed block%s with a test of the same lift near its start "
 			"and its end\n", ra->block ? " (of those asked)" : "");
-	fprintf(ctx->out, "\ndose: weekly fractional sets of the lift's prime movers; predicted: "
-		"the curve for that dose,\nthe athlete's status and the block's length, with its "
-		"%d%% prediction interval (test error\nincluded); percentile: where the observed "
-		"change falls in that predictive distribution.\n\n", lvl);
+	fprintf(ctx->out, "\ndose: weekly fractional sets of the lift's prime movers; predicted: the "
+		"curve for that dose, the athlete's\nstatus and the block's length; obs_lo..obs_hi: "
+		"the %d%% interval where the change was expected\n(the curve's error, the athlete's "
+		"and the block's deviations, test error); percentile: where it fell;\nbeyond: values "
+		"outside the profile's evidence (held at its edge).\n\n", lvl);
 	fprintf(ctx->out, "personal response: %+.1f%% (lnRR %+.4f), %d%% interval %+.1f%% to %+.1f%%\n",
 		curve_pct(pr->mean), pr->mean, lvl, curve_pct(pr->lo), curve_pct(pr->hi));
 	if (pr->n)
-		fprintf(ctx->out, "  from %d observation%s in %d completed block%s (all of the "
-			"athlete's); unshrunk mean deviation %+.1f%% (SE %.4f lnRR);\n  weight of the "
-			"data %.2f, of the prior %.2f (empirical-Bayes shrinkage toward 0)\n", pr->n,
+		fprintf(ctx->out, "  the athlete's own deviation from the curve, from %d observation%s "
+			"in %d completed block%s\n  (all of the athlete's); unshrunk %+.1f%% (SE %.4f "
+			"lnRR); weight of the data %.2f, of the prior %.2f\n", pr->n,
 			pr->n == 1 ? "" : "s", rs->nblocks, rs->nblocks == 1 ? "" : "s",
 			curve_pct(pr->raw), pr->raw_se, pr->weight, 1 - pr->weight);
 	else
@@ -130,21 +166,31 @@ static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const stru
 		      const struct resp_data *rs, const struct sd_rec *r, const struct resp_personal *pr,
 		      struct sd_err *e)
 {
-	char *name = rec_json_string(a->name), *prof = rec_json_string(ctx->profile.name);
-	char test[32], prior[32], level[32], window[16], personal[640];
+	const struct resp_vars *v = &rs->vars;
+	char *name = rec_json_string(a->name), *prof = json_profile_text(&ctx->profile);
+	char *why = rec_json_string(v->why);
+	char test[32], level[32], window[16], personal[640], vars[512];
 	const char *extra[] = { "athlete", name, "status", a->trained ? "\"trained\"" : "\"untrained\"",
-		"profile", prof, "test_error", test, "prior_sd", prior, "level", level,
-		"window_days", window, "personal", personal, NULL };
+		"profile", prof, "test_error", test, "level", level, "window_days", window,
+		"variances", vars, "personal", personal, "caution", NULL, NULL };
+	char *caution = rec_json_string(aout_caution);
+	int rc = 0;
 
-	if (!name || !prof) {
-		free(name);
-		free(prof);
-		return sd_fail(e, "out of memory");
+	extra[17] = caution;
+	if (!name || !prof || !why || !caution) {
+		rc = sd_fail(e, "out of memory");
+		goto done;
 	}
 	snprintf(test, sizeof test, "%.6g", ra->ro.test_sd);
-	snprintf(prior, sizeof prior, "%.6g", ra->ro.prior_sd);
 	snprintf(level, sizeof level, "%.6g", ra->ro.level);
 	snprintf(window, sizeof window, "%d", ra->window);
+	snprintf(vars, sizeof vars,
+		 "{\"source\": \"%s\", \"athlete\": %.8f, \"block\": %.8f, \"block_cov_slope\": %.8f, "
+		 "\"block_slope\": %.8f, \"roster_athletes\": %d, \"roster_repeated\": %d, "
+		 "\"roster_observations\": %d, \"mean_deviation\": %.8f, \"mean_deviation_se\": %.8f, "
+		 "\"why_priors\": %s}", v->estimated ? "roster-reml" : "priors", v->athlete, v->block,
+		 v->block_cov, v->block_slope, v->roster_athletes, v->roster_repeated, v->roster_obs,
+		 v->mean_dev, v->mean_dev_se, v->estimated ? "null" : why);
 	snprintf(personal, sizeof personal,
 		 "{\"observations\": %d, \"blocks\": %d, \"lnrr\": %.6f, \"sd\": %.6f, "
 		 "\"low\": %.6f, \"high\": %.6f, \"pct\": %.3f, \"pct_low\": %.3f, \"pct_high\": %.3f, "
@@ -152,22 +198,28 @@ static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const stru
 		 pr->n, rs->nblocks, pr->mean, pr->sd, pr->lo, pr->hi, curve_pct(pr->mean),
 		 curve_pct(pr->lo), curve_pct(pr->hi), pr->raw, pr->raw_se, pr->weight);
 	rec_print_json_object(r, "observations", ctx->out, extra);
+done:
 	free(name);
 	free(prof);
-	return 0;
+	free(why);
+	free(caution);
+	return rc;
 }
 
 static int print_csv(struct sd_ctx *ctx, const struct rargs *ra, const struct resp_data *rs,
 		     const struct sd_rec *r, const struct resp_personal *pr)
 {
+	const struct resp_vars *v = &rs->vars;
+
 	rec_print(r, ctx->out);
 	/* The personal estimate as a second table after a blank line. */
 	fprintf(ctx->out, "\nobservations,blocks,lnrr,sd,low,high,pct,pct_low,pct_high,unshrunk_lnrr,"
-		"unshrunk_se,data_weight,prior_sd,test_error,level\n");
-	fprintf(ctx->out, "%d,%d,%.6f,%.6f,%.6f,%.6f,%.3f,%.3f,%.3f,%.6f,%.6f,%.4f,%g,%g,%g\n",
+		"unshrunk_se,data_weight,variances,var_athlete,var_block,test_error,level\n");
+	fprintf(ctx->out, "%d,%d,%.6f,%.6f,%.6f,%.6f,%.3f,%.3f,%.3f,%.6f,%.6f,%.4f,%s,%.8f,%.8f,%g,%g\n",
 		pr->n, rs->nblocks, pr->mean, pr->sd, pr->lo, pr->hi, curve_pct(pr->mean),
 		curve_pct(pr->lo), curve_pct(pr->hi), pr->raw, pr->raw_se, pr->weight,
-		ra->ro.prior_sd, ra->ro.test_sd, ra->ro.level);
+		v->estimated ? "roster-reml" : "priors", v->athlete, v->block, ra->ro.test_sd,
+		ra->ro.level);
 	return 0;
 }
 
@@ -183,7 +235,7 @@ static int exec_response(struct sd_ctx *ctx, int argc, char **argv, struct sd_er
 	if (respd_load(ctx, argv[optind], ra.block, ra.window, &ra.ro, &rs, e))
 		return -1;
 	lb = dbu_lb(ctx, &rs.athlete);
-	if (!(r = rec_new(13, heads, ctx->opt.format))) {
+	if (!(r = rec_new(NCOLS, heads, ctx->opt.format))) {
 		sd_fail(e, "out of memory");
 		goto done;
 	}
@@ -214,13 +266,20 @@ done:
 const struct sd_cmd cmd_response = {
 	.name = "response",
 	.summary = "did the athlete respond as predicted? observed vs predicted gains per block",
-	.usage = "response ATHLETE [--block ID] [--prior-sd SD] [--test-error SD] [--window DAYS]\n"
+	.usage = "response ATHLETE [--block ID] [--priors] [--prior-sd SD] [--test-error SD]\n"
+		 "                  [--window DAYS]\n"
 		 "  for each completed block and tested lift with a test near the block's start and\n"
 		 "  one near its end: observed change, the curve's prediction for the dose of the\n"
 		 "  lift's prime movers, and the observation's percentile; then the athlete's\n"
-		 "  personal response (empirical-Bayes deviation from the curve, shrunk toward 0)\n"
+		 "  personal response: the posterior of their own deviation from the curve in a\n"
+		 "  hierarchical model (athlete, block, test error; the curve's error shared by all)\n"
+		 "  whose athlete and block variances are estimated by REML from every athlete's\n"
+		 "  observations once at least 10 athletes have them and 5 have two or more blocks,\n"
+		 "  else the stated priors (the output says which)\n"
 		 "  --block ID       show only this block's rows (the personal estimate uses all)\n"
-		 "  --prior-sd SD    prior SD of personal deviations, log scale (default 0.05)\n"
+		 "  --priors         use the stated priors even when the roster could estimate\n"
+		 "  --prior-sd SD    prior SD of the athlete's deviation, log scale (default: the\n"
+		 "                   square root of the profile's between-athlete variance)\n"
 		 "  --test-error SD  1RM test-retest error per test, log scale (default 0.03)\n"
 		 "  --window DAYS    how near a test must be to a block's start or end (default 14)",
 	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,

@@ -4,6 +4,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "../io/jsonout.h"
 #include "../io/table.h"
 #include "cmd.h"
 
@@ -37,7 +38,7 @@ static void long_rows(struct sd_ctx *ctx, const double *d, int n, const struct s
 	for (int i = 0; i < n; i++)
 		for (int j = i + 1; j < n; j++) {
 			struct sd_delta dl;
-			curve_delta(&ctx->profile, cov, d[i], d[j], ctx->opt.level, &dl);
+			curve_delta(&ctx->profile, cov, d[i], d[j], ctx->opt.level, 0, &dl);
 			tbl_row(t);
 			tbl_set(t, 0, "%g", d[i]);
 			tbl_set(t, 1, "%g", d[j]);
@@ -86,12 +87,16 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 			tbl_print(t, ctx->out, 1);
 		else {
 			/* JSON: the same rows as objects, plus the plateau. */
-			fprintf(ctx->out, "{\"plateau\": %g, \"swc_pct\": %.4f, \"level\": %g, \"returns\": [",
-				plateau, curve_pct(p->swc), ctx->opt.level);
+			char *prof = json_profile_text(p);
+			fprintf(ctx->out, "{\"profile\": %s, \"plateau\": %g, \"swc_pct\": %.4f, \"level\": %g, "
+				"\"weeks\": %g, \"weeks_beyond_evidence\": %s, \"returns\": [", prof ? prof : "null",
+				plateau, curve_pct(p->swc), ctx->opt.level, cov.weeks,
+				curve_beyond(p, &cov, p->dose_min) & SD_BEYOND_WEEKS ? "true" : "false");
+			free(prof);
 			for (int i = 0, k = 0; i < n; i++)
 				for (int j = i + 1; j < n; j++, k++) {
 					struct sd_delta dl;
-					curve_delta(p, &cov, d[i], d[j], ctx->opt.level, &dl);
+					curve_delta(p, &cov, d[i], d[j], ctx->opt.level, 0, &dl);
 					fprintf(ctx->out, "%s\n  {\"from\": %g, \"to\": %g, \"delta_pct\": %.4f, "
 						"\"ci_low\": %.4f, \"ci_high\": %.4f, \"practical\": %s, "
 						"\"statistical\": %s}", k ? "," : "", d[i], d[j], curve_pct(dl.d),
@@ -106,10 +111,13 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 
 	/* The grid: row = from, column = to; each cell the extra gain in percent, marked '*' when
 	 * it exceeds the SWC and '+' when only its interval excludes zero. */
+	char note[240];
+	curve_context_note(p, &cov, note, sizeof note);
 	fprintf(ctx->out, "Extra gain (%%, as a ratio of gains) from moving FROM -> TO weekly fractional sets\n"
-		"%s, %g-week block. '*' beyond the SWC (%.1f%%), '+' interval excludes 0 only, "
-		"'.' neither.\n\n     from\\to", cov.trained >= 0.5 ? "trained" : "untrained",
-		cov.weeks, curve_pct(p->swc));
+		"%s, %g-week block; the average curve. '*' beyond the SWC (%.1f%%), '+' interval "
+		"excludes 0 only, '.' neither.\n%s%s%s\n     from\\to", cov.trained >= 0.5 ? "trained" :
+		"untrained", cov.weeks, curve_pct(p->swc), note[0] ? "warning: " : "", note,
+		note[0] ? "\n" : "");
 	for (int j = 1; j < n; j++)
 		fprintf(ctx->out, " %6g", d[j]);
 	fputc('\n', ctx->out);
@@ -121,7 +129,7 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 				continue;
 			}
 			struct sd_delta dl;
-			curve_delta(p, &cov, d[i], d[j], ctx->opt.level, &dl);
+			curve_delta(p, &cov, d[i], d[j], ctx->opt.level, 0, &dl);
 			fprintf(ctx->out, " %5.1f%c", curve_pct(dl.d),
 				dl.practical ? '*' : dl.statistical ? '+' : '.');
 		}

@@ -49,7 +49,7 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	if (argc - optind < 3 || argc - optind > 4)
 		return usage(e);
 	if (argc - optind == 4 &&
-	    dbu_int("REPS", argv[optind + 3], 1, 1000, &reps, e))
+	    dbu_int("REPS", argv[optind + 3], 1, E1RM_MAX_REPS, &reps, e))
 		return -1;
 	if (!have_date && dbu_today(t.date, e))
 		return -1;

@@ -40,14 +40,18 @@ int audit_run(const struct sd_program *prog, const struct sd_library *lib,
 		struct sd_audit_row *r = &out->row[m];
 		r->dose = out->vol.m[m];
 		curve_eval(prof, cov, r->dose.fractional, o->level, &r->pt);
-		curve_marginal(prof, cov, r->dose.fractional, o->level, &r->marg);
+		curve_plus1(prof, cov, r->dose.fractional, o->level, &r->plus1);
 		r->zone = curve_zone(prof, out->plateau, r->dose.fractional);
 	}
 
 	/* Warnings, most serious first: how the program was read (an old-style effort can empty
-	 * the whole count), extrapolation, per-session load, then counting notes. */
+	 * the whole count), a context beyond the evidence, extrapolation, per-session load, then
+	 * counting notes. */
 	for (int i = 0; i < prog->nnotes; i++)
 		warn(out, -1, prog->notes[i].day, "%s", prog->notes[i].text);
+	char note[200];
+	if ((out->beyond = curve_context_note(prof, cov, note, sizeof note)))
+		warn(out, -1, -1, "%s; every prediction is flagged", note);
 	for (int m = 0; m < SD_NMUSCLES; m++)
 		if (out->row[m].zone == SD_ZONE_BEYOND)
 			warn(out, m, -1, "%s: %.1f weekly fractional sets is past the evidence (%.0f); "

@@ -12,14 +12,14 @@
 struct sd_audit_row {
 	struct sd_mdose dose;
 	struct sd_point pt;          /* curve at dose.fractional */
-	struct sd_marginal marg;
+	struct sd_plus1 plus1;       /* what one more weekly set buys */
 	enum sd_zone zone;
 };
 
 struct sd_warning {
 	int muscle;                  /* -1 when about the whole program */
 	int day;                     /* -1 when not about one day */
-	char text[160];
+	char text[240];
 };
 
 struct sd_audit {
@@ -27,6 +27,7 @@ struct sd_audit {
 	struct sd_covars cov;
 	double level;
 	double plateau;              /* practical plateau, weekly fractional sets */
+	unsigned beyond;             /* SD_BEYOND_* bits of the context (weeks, trained) */
 	struct sd_audit_row row[SD_NMUSCLES];
 	struct sd_warning warn[SD_MAX_WARN];
 	int nwarn;

@@ -2,63 +2,64 @@
 
 #include "stats.h"
 
-double cmp_prob_above(double d, double se, double t, int df)
+double cmp_decision_level(double level)
 {
-	if (!(se > 0))
-		return d > t ? 1.0 : 0.0;
-	/* Upper tail through the symmetric lower one: 1 - Phi(z) = Phi(-z), which keeps
-	 * precision when the probability is tiny. */
-	return st_cdf((d - t) / se, df);
+	double l = 1.0 - 2.0 * (1.0 - level);
+	return l > 0 ? l : 0;
 }
 
-enum cmp_verdict cmp_classify(double d, double lo, double hi, double swc)
+enum cmp_decision cmp_decide(double lo, double hi, double swc)
 {
-	int clear = lo > 0 || hi < 0;
-
-	if (d > swc)
-		return clear ? CMP_WORTHWHILE_GAIN : CMP_UNSURE_GAIN;
-	if (d < -swc)
-		return clear ? CMP_WORTHWHILE_LOSS : CMP_UNSURE_LOSS;
-	if (clear)
-		return d > 0 ? CMP_TRIVIAL_GAIN : CMP_TRIVIAL_LOSS;
-	return CMP_NO_DIFFERENCE;
+	if (lo > swc)
+		return CMP_CLEAR_GAIN;
+	if (hi < -swc)
+		return CMP_CLEAR_LOSS;
+	if (lo > -swc && hi < swc)
+		return CMP_EQUIVALENT;
+	if (lo > 0)
+		return CMP_SOME_GAIN;
+	if (hi < 0)
+		return CMP_SOME_LOSS;
+	return CMP_UNCLEAR;
 }
 
-static const char *const names[CMP_NVERDICTS] = {
-	"worthwhile-gain", "unsure-gain", "trivial-gain", "no-clear-difference",
-	"trivial-loss", "unsure-loss", "worthwhile-loss",
+static const char *const names[CMP_NDECISIONS] = {
+	"clear-gain", "equivalent", "some-gain", "unclear", "some-loss", "clear-loss",
 };
 
-static const char *const texts[CMP_NVERDICTS] = {
-	"worthwhile gain", "gain, unsure", "real but trivial gain", "no clear difference",
-	"real but trivial loss", "loss, unsure", "worthwhile loss",
+static const char *const meanings[CMP_NDECISIONS] = {
+	"wholly above +SWC", "wholly inside +-SWC (two one-sided tests)",
+	"above 0, reaching inside the SWC", "includes 0 and reaches past the SWC",
+	"below 0, reaching inside the SWC", "wholly below -SWC",
 };
 
-const char *cmp_verdict_name(enum cmp_verdict v)
+const char *cmp_decision_name(enum cmp_decision v)
 {
-	return v < CMP_NVERDICTS ? names[v] : "?";
+	return v < CMP_NDECISIONS ? names[v] : "?";
 }
 
-const char *cmp_verdict_text(enum cmp_verdict v)
+const char *cmp_decision_meaning(enum cmp_decision v)
 {
-	return v < CMP_NVERDICTS ? texts[v] : "?";
+	return v < CMP_NDECISIONS ? meanings[v] : "?";
 }
 
 void cmp_muscle(const struct sd_profile *p, const struct sd_covars *c, double level, double xa,
 		double xb, struct cmp_diff *out)
 {
 	struct sd_delta dl;
+	double q;
 
-	curve_delta(p, c, xa, xb, level, &dl);
+	curve_delta(p, c, xa, xb, level, 1, &dl);
 	out->xa = xa;
 	out->xb = xb;
 	out->d = dl.d;
 	out->se = dl.se;
 	out->lo = dl.lo;
 	out->hi = dl.hi;
-	out->p_gain = cmp_prob_above(dl.d, dl.se, p->swc, p->df);
-	out->p_loss = cmp_prob_above(-dl.d, dl.se, p->swc, p->df);
-	out->verdict = cmp_classify(dl.d, dl.lo, dl.hi, p->swc);
+	q = st_crit(cmp_decision_level(level), p->df);
+	out->dlo = dl.d - q * dl.se;
+	out->dhi = dl.d + q * dl.se;
+	out->decision = cmp_decide(out->dlo, out->dhi, p->swc);
 }
 
 void cmp_totals(const struct sd_audit *a, double session_cap, struct cmp_totals *out)

@@ -1,9 +1,11 @@
 /* Estimated one-repetition maximum (1RM) from a set of REPS repetitions to failure with LOAD,
  * by the published prediction equations. The result is in the unit of the load.
  *
- * Default: Brzycki (1993). It returns exactly the load at 1 rep without a special case, it
- * agrees with Epley at 10 reps, and in the 2-10 rep range where the equations are meant to be
- * used it sits in the middle of the others rather than at an extreme. */
+ * Default: Brzycki (1993). It returns exactly the load at 1 rep without a special case and
+ * agrees with Epley at 10 reps. It is not central: of the seven it gives the lowest estimate
+ * from 2 to 4 reps, ties O'Conner for lowest at 5, is second lowest at 6-7, third at 8-9 and
+ * fourth at 10 (tests/test_e1rm.c), so at the low reps where strength is tested it is the
+ * conservative end. */
 #ifndef SD_E1RM_H
 #define SD_E1RM_H
 

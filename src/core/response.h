@@ -1,68 +1,116 @@
-/* Did the athlete respond as predicted? Observed strength changes over completed blocks set
- * against the curve's prediction for each block's dose, and an empirical-Bayes estimate of how
- * far this athlete runs above or below the curve.
+/* Did the athlete respond as predicted? A hierarchical model of observed strength changes
+ * around the curve, the place of each observation in its predictive distribution, and the
+ * athlete's own deviation from the curve.
  *
- * Model, on the log scale (lnRR): a block's observed change obs_k = ln(post/pre) is
- *   obs_k = yhat_k + u + e_k,   e_k ~ N(0, s_k^2),   s_k^2 = sp_k^2 + 2 t^2,
- * where yhat_k and sp_k are the curve's mean and predictive SD at the block's dose, t is the
- * SD of one 1RM test on the log scale (test-retest error; pre and post each carry it, hence
- * 2 t^2) and u is the athlete's personal deviation, with prior u ~ N(0, tau^2).
- * Observed percentile: 100 Phi((obs_k - yhat_k) / s_k), the place of the observation in its
- * predictive distribution (normal approximation).
- * Personal response: the normal-normal posterior of u given d_k = obs_k - yhat_k,
- *   mean = (sum d_k / s_k^2) / (1/tau^2 + sum 1/s_k^2),  var = 1 / (1/tau^2 + sum 1/s_k^2),
- * which shrinks toward 0 when data are few or noisy.
- * Simplifications (documented in man/setdose.1): the d_k are treated as independent, although
- * the curve's own uncertainty and a block's shared conditions make them correlate a little,
- * so with many observations the interval is somewhat too narrow; tau and t are stated, not
- * estimated. */
+ * Model, on the log scale: the observed change of lift j, obs_j = ln(post/pre), is
+ *   obs_j = yhat_j + c_j + a + b_k(j) + e_j
+ *   yhat_j  the curve at the lift's dose and its block's length and status (design z_j)
+ *   c_j     the curve's own error z_j'(beta - b): shared by every observation,
+ *           Cov(c_j, c_l) = z_j' V z_l with V the profile's coefficient covariance
+ *   a       the athlete's persistent deviation, variance A
+ *   b_k     the deviation of block k, shared by the block's lifts, variance B (with a
+ *           random-slope prior: B + (f_j + f_l) cov + f_j f_l slope between lifts j, l of k)
+ *   e_j     test error of the change, variance v_j (resp_change_var)
+ * so d = obs - yhat ~ N(0, Sigma), Sigma = Z V Z' + A 11' + blocks + diag(v). With
+ * Sigma0 = Sigma - A 11', s = 1'Sigma0^-1 1 and t = 1'Sigma0^-1 d, the athlete's deviation
+ * has the closed-form posterior
+ *   a | d ~ N(A t / (1 + A s), A / (1 + A s)),
+ * shrinking toward 0 (the curve) with little data; t/s (SE 1/sqrt(s)) is the unshrunk
+ * estimate and A s / (1 + A s) the data's weight.
+ *
+ * Variances A and B: estimated by REML from the whole roster (resp_roster_vars: athletes as
+ * studies, blocks as effects, v as sampling variances, an intercept absorbing the roster's
+ * common shift from the curve) when at least RESP_EB_MIN_ATHLETES athletes have observations
+ * and RESP_EB_MIN_REPEATED of them have two or more blocks; otherwise the stated priors
+ * (resp_prior_vars): A = the profile's between-athlete variance, B = tau2 + sigma2 (a block's
+ * programme and conditions vary like a new group's), so one observation's predictive variance
+ * is the "one athlete" band's plus test error. */
 #ifndef SD_RESPONSE_H
 #define SD_RESPONSE_H
 
+#include "curve.h"
 #include "err.h"
 
-/* Chosen defaults, settable (--test-error, --prior-sd). The 1RM test-retest error of about
- * 3 % is from memory (typical values reported for trained lifters are 2-4 %); the prior SD of
- * personal deviations, 0.05 (about 5 percentage points of gain), is common practice, no source. */
+/* The 1RM test-retest error per test on the log scale; about 3 % is from memory (typical
+ * values reported for trained lifters are 2-4 %), settable (--test-error). */
 #define RESP_TEST_SD 0.03
-#define RESP_PRIOR_SD 0.05
+/* The roster sizes that switch the variances from priors to REML estimates: ten clusters is
+ * about the fewest from which a variance is estimated with any precision, and athlete and
+ * block variance are only told apart by athletes with several blocks (common practice, no
+ * source). */
+#define RESP_EB_MIN_ATHLETES 10
+#define RESP_EB_MIN_REPEATED 5
+
+/* Variance over the 1RM equations (e1rm.h) of ln(estimate / load) at reps: how much the
+ * equations disagree about the conversion (0 at 1 rep). */
+double resp_equation_var(int reps);
+/* Test-error variance of a change: 2 t^2 when pre and post come from the same rep count (the
+ * conversion's error is then common to both and cancels in the ratio); when the counts
+ * differ it does not cancel, and each test adds resp_equation_var of its reps. */
+double resp_change_var(double test_sd, int reps_pre, int reps_post);
 
 struct resp_obs {
-	double obs;    /* observed ln(post/pre) */
-	double yhat;   /* predicted lnRR at the block's dose */
-	double sp;     /* curve's predictive SD there: sqrt(z'Vz + heterogeneity) */
+	long long block;             /* lifts of one block share its deviation */
+	double obs;                  /* observed ln(post/pre) */
+	double yhat;                 /* the curve: z'b */
+	double z[SD_MAX_TERMS];      /* the curve's design for this observation */
+	double v;                    /* test-error variance of the change */
 };
 
-struct resp_opts {
-	double test_sd;   /* t: SD of one 1RM test, log scale, >= 0 */
-	double prior_sd;  /* tau: SD of true personal deviations, log scale, > 0 */
-	double level;     /* interval level, e.g. 0.95 */
+struct resp_vars {
+	double athlete;              /* A */
+	double block;                /* B */
+	double block_cov, block_slope;  /* random-slope parts of a block's deviation (priors) */
+	int estimated;               /* 1: REML estimates from the roster; 0: the priors */
+	int roster_athletes;         /* athletes with observations */
+	int roster_repeated;         /* of them, with two or more blocks */
+	int roster_obs;
+	double mean_dev, mean_dev_se;/* the roster's mean deviation from the curve (REML) */
+	char why[200];               /* when the priors are used: why */
+};
+
+struct resp_roster {
+	int n;
+	const int *athlete;          /* n athlete ids */
+	const long long *block;      /* n block ids (unique over the roster) */
+	const double *dev;           /* n deviations obs - yhat */
+	const double *v;             /* n test-error variances */
 };
 
 struct resp_fit {
 	double dev;       /* obs - yhat */
-	double sd;        /* s: SD of the predictive distribution of obs */
+	double sd;        /* SD of the predictive distribution of obs */
 	double z;         /* dev / sd */
 	double pctile;    /* 100 Phi(z) */
-	double lo, hi;    /* prediction interval for obs, test error included (lnRR) */
+	double lo, hi;    /* prediction interval for obs (lnRR) */
 };
 
 struct resp_personal {
 	int n;            /* observations used */
-	double mean;      /* posterior (shrunken) mean deviation u, lnRR */
+	double mean;      /* posterior mean of the athlete's deviation a, lnRR */
 	double sd;        /* its posterior SD */
 	double lo, hi;    /* its interval at the level asked */
-	double raw;       /* unshrunken precision-weighted mean deviation (0 when n = 0) */
-	double raw_se;    /* its standard error (0 when n = 0) */
-	double weight;    /* share of the data in the posterior mean: 1 - shrinkage, 0..1 */
+	double raw;       /* unshrunk estimate t/s (0 when n = 0) */
+	double raw_se;    /* 1/sqrt(s) (0 when n = 0) */
+	double weight;    /* A s / (1 + A s): the data's share, 0..1 */
 };
 
-/* Checks options: finite, test_sd >= 0, prior_sd > 0, 0 < level < 1. */
-int resp_check_opts(const struct resp_opts *opt, struct sd_err *e);
-/* Where one observation falls in its predictive distribution. */
-void resp_observe(const struct resp_obs *o, const struct resp_opts *opt, struct resp_fit *out);
-/* The personal response from n observations (n = 0 gives the prior). */
-int resp_personal(const struct resp_obs *o, int n, const struct resp_opts *opt,
-		  struct resp_personal *out, struct sd_err *e);
+/* The stated priors: A = athlete_var (the profile's, or --prior-sd squared), B and its slope
+ * parts from the profile's heterogeneity. */
+void resp_prior_vars(const struct sd_profile *p, double athlete_var, struct resp_vars *out);
+/* Replaces the variances in *out by REML estimates from the roster when it is large enough
+ * (counts filled either way; why says so when it is not, or when the fit fails). Returns -1
+ * only on an error that is not about the data (out of memory). */
+int resp_roster_vars(const struct resp_roster *r, struct resp_vars *out, struct sd_err *e);
+/* An observation's design, mean and test-error variance from its context. */
+void resp_obs_set(const struct sd_profile *p, const struct sd_covars *c, double dose,
+		  double obs, double v, long long block, struct resp_obs *out);
+/* Where one observation falls in its predictive distribution N(yhat, z'Vz + A + B_jj + v). */
+void resp_observe(const struct sd_profile *p, const struct resp_obs *o,
+		  const struct resp_vars *v, double level, struct resp_fit *out);
+/* The athlete's deviation from n observations (n = 0 gives the prior). */
+int resp_personal(const struct sd_profile *p, const struct resp_obs *o, int n,
+		  const struct resp_vars *v, double level, struct resp_personal *out,
+		  struct sd_err *e);
 
 #endif

@@ -95,9 +95,10 @@ done:
 static struct sd_table *muscle_table(const struct allot_view *v)
 {
 	static const char *const heads[] = { "<muscle", "priority", "min", "fractional",
-					     "max/session", "gain%", "ci_low", "ci_high", "+1set%",
-					     "<zone" };
-	struct sd_table *t = tbl_new(10, heads);
+					     "max/session", "gain%", "curve_lo", "curve_hi",
+					     "athlete_lo", "athlete_hi", "+1set%", "+1set_lo",
+					     "+1set_hi", "<zone" };
+	struct sd_table *t = tbl_new(14, heads);
 	if (!t)
 		return NULL;
 	for (int m = 0; m < SD_NMUSCLES; m++) {
@@ -111,8 +112,12 @@ static struct sd_table *muscle_table(const struct allot_view *v)
 		tbl_set(t, 5, "%.1f", pct(r->pt.y));
 		tbl_set(t, 6, "%.1f", pct(r->pt.ci_lo));
 		tbl_set(t, 7, "%.1f", pct(r->pt.ci_hi));
-		tbl_set(t, 8, "%.2f", r->marg.pct);
-		tbl_set(t, 9, "%s", zone_name(r->zone));
+		tbl_set(t, 8, "%.1f", pct(r->pt.ath_lo));
+		tbl_set(t, 9, "%.1f", pct(r->pt.ath_hi));
+		tbl_set(t, 10, "%.2f", r->plus1.pct);
+		tbl_set(t, 11, "%.2f", r->plus1.lo);
+		tbl_set(t, 12, "%.2f", r->plus1.hi);
+		tbl_set(t, 13, "%s", zone_name(r->zone));
 	}
 	return t;
 }
@@ -231,7 +236,7 @@ static cJSON *summary_json(const struct allot_view *v)
 	json_num(o, "session_cap", v->cap, 4);
 	cJSON_AddStringToObject(o, "status", v->audit->cov.trained >= 0.5 ? "trained" : "untrained");
 	json_num(o, "weeks", v->audit->cov.weeks, 2);
-	cJSON_AddStringToObject(o, "profile", v->prof->name);
+	json_profile(o, v->prof);
 	cJSON_AddStringToObject(o, "method", "branch-and-bound");
 	cJSON_AddBoolToObject(o, "proved", r->proved);
 	cJSON_AddBoolToObject(o, "proved_optimal", r->proved && exact(r));
@@ -303,9 +308,10 @@ static cJSON *muscles_json(const struct allot_view *v)
 		cJSON_AddNumberToObject(o, "sessions", r->dose.sessions);
 		json_num(o, "lnrr", r->pt.y, 6);
 		json_num(o, "gain_pct", pct(r->pt.y), 3);
-		json_num(o, "ci_low", pct(r->pt.ci_lo), 3);
-		json_num(o, "ci_high", pct(r->pt.ci_hi), 3);
-		json_num(o, "marginal_pct", r->marg.pct, 4);
+		json_bands(o, &r->pt, 3);
+		json_num(o, "plus1_pct", r->plus1.pct, 4);
+		json_num(o, "plus1_low", r->plus1.lo, 4);
+		json_num(o, "plus1_high", r->plus1.hi, 4);
 		cJSON_AddStringToObject(o, "zone", zone_name(r->zone));
 		cJSON_AddItemToArray(arr, o);
 	}

@@ -25,26 +25,111 @@ static const char *status_name(const struct sd_audit *a)
 	return a->cov.trained >= 0.5 ? "trained" : "untrained";
 }
 
+const char aout_bands_legend[] =
+	"curve: the average curve (confidence interval); group: a new group or study (adds the "
+	"between-study heterogeneity); athlete: one athlete (adds the between-athlete variance "
+	"of the response)";
+
+const char *const aout_band_lines[3] = {
+	"curve    the average curve (confidence interval)",
+	"group    a new group or study (adds the between-study heterogeneity tau2 + sigma2)",
+	"athlete  one athlete (adds the profile's between-athlete variance of the response)",
+};
+
+void aout_bands_text(FILE *f, int level_pct)
+{
+	fprintf(f, "%d%% intervals for three levels:\n", level_pct);
+	for (int i = 0; i < 3; i++)
+		fprintf(f, "  %s\n", aout_band_lines[i]);
+}
+
+void aout_profile_line(FILE *f, const struct sd_profile *p)
+{
+	char line[300];
+	profile_oneline(p, line, sizeof line);
+	fprintf(f, "%s\n", line);
+}
+
+static struct sd_table *dose_table(const struct sd_audit *a)
+{
+	static const char *const heads[] = { "<muscle", "direct", "indirect", "fractional",
+					     "max/session", "sessions", "<zone" };
+	struct sd_table *t = tbl_new(7, heads);
+	for (int m = 0; t && m < SD_NMUSCLES; m++) {
+		const struct sd_audit_row *r = &a->row[m];
+		if (tbl_row(t))
+			break;
+		tbl_set(t, 0, "%s", muscle_name(m));
+		tbl_set(t, 1, "%g", r->dose.direct);
+		tbl_set(t, 2, "%g", r->dose.indirect);
+		tbl_set(t, 3, "%.1f", r->dose.fractional);
+		tbl_set(t, 4, "%.1f", r->dose.max_session);
+		tbl_set(t, 5, "%d", r->dose.sessions);
+		tbl_set(t, 6, "%s", zone_name(r->zone));
+	}
+	return t;
+}
+
+static const char *const gain_heads[] = {
+	"<muscle", "gain%", "curve_lo", "curve_hi", "group_lo", "group_hi", "athlete_lo",
+	"athlete_hi", "+1set%", "+1set_lo", "+1set_hi",
+};
+
+/* The gain columns of one row, from column c on: gain, the three intervals, +1 set. */
+static int gain_cells(struct sd_table *t, int c, const struct sd_audit_row *r, int precise)
+{
+	const char *g = precise ? "%.3f" : "%.1f", *m = precise ? "%.4f" : "%.2f";
+	tbl_set(t, c++, g, pct(r->pt.y));
+	tbl_set(t, c++, g, pct(r->pt.ci_lo));
+	tbl_set(t, c++, g, pct(r->pt.ci_hi));
+	tbl_set(t, c++, g, pct(r->pt.group_lo));
+	tbl_set(t, c++, g, pct(r->pt.group_hi));
+	tbl_set(t, c++, g, pct(r->pt.ath_lo));
+	tbl_set(t, c++, g, pct(r->pt.ath_hi));
+	tbl_set(t, c++, m, r->plus1.pct);
+	tbl_set(t, c++, m, r->plus1.lo);
+	tbl_set(t, c++, m, r->plus1.hi);
+	return c;
+}
+
+static struct sd_table *gain_table(const struct sd_audit *a)
+{
+	struct sd_table *t = tbl_new(11, gain_heads);
+	for (int m = 0; t && m < SD_NMUSCLES; m++) {
+		if (tbl_row(t))
+			break;
+		tbl_set(t, 0, "%s", muscle_name(m));
+		gain_cells(t, 1, &a->row[m], 0);
+	}
+	return t;
+}
+
 void aout_report(FILE *f, const struct sd_audit_info *in, int color)
 {
 	const struct sd_audit *a = in->audit;
 	const struct sd_program *p = in->prog;
 	int lvl = (int)lround(a->level * 100);
-	struct sd_table *t = aout_muscle_table(0);
+	struct sd_table *t;
 
 	fprintf(f, "%s%s%s (%s)\n", color ? "\033[1m" : "", p->name, color ? "\033[0m" : "", in->label);
 	if (in->athlete)
 		fprintf(f, "athlete: %s\n", in->athlete);
-	fprintf(f, "%d day%s, %d hard sets a week; %s, %g-week block; profile %s; plateau at %g "
+	fprintf(f, "%d day%s, %d hard sets a week; %s, %g-week block%s; profile %s; plateau at %g "
 		"weekly fractional sets (SWC %.1f%%)\n\n", p->ndays, p->ndays == 1 ? "" : "s",
-		a->vol.hard_sets, status_name(a), a->cov.weeks, in->prof->name, a->plateau,
+		a->vol.hard_sets, status_name(a), a->cov.weeks,
+		a->beyond ? " (beyond the evidence)" : "", in->prof->name, a->plateau,
 		pct(in->prof->swc));
-	if (t && !aout_muscle_rows(t, in, 0)) {
+	if ((t = dose_table(a)))
 		tbl_print(t, f, 0);
-	}
 	tbl_free(t);
-	fprintf(f, "\ngain: predicted 1RM change over the block, %d%% CI (average athlete) and %d%% PI "
-		"(a new athlete); +1 set: gain per extra weekly set.\n", lvl, lvl);
+	fprintf(f, "\npredicted 1RM change over the block (%%), %d%% intervals\n", lvl);
+	if ((t = gain_table(a)))
+		tbl_print(t, f, 0);
+	tbl_free(t);
+	fputc('\n', f);
+	aout_bands_text(f, lvl);
+	fprintf(f, "+1set: percentage points one more weekly set adds on the average curve, with its "
+		"interval.\n");
 	for (int i = 0; i < a->nwarn; i++)
 		fprintf(f, "%swarning:%s %s\n", color ? "\033[33m" : "", color ? "\033[0m" : "",
 			a->warn[i].text);
@@ -52,12 +137,13 @@ void aout_report(FILE *f, const struct sd_audit_info *in, int color)
 
 static const char *const muscle_heads[] = {
 	"<program", "<muscle", "direct", "indirect", "fractional", "max/session", "sessions",
-	"gain%", "ci_low", "ci_high", "pi_low", "pi_high", "+1set%", "<zone",
+	"gain%", "curve_lo", "curve_hi", "group_lo", "group_hi", "athlete_lo", "athlete_hi",
+	"+1set%", "+1set_lo", "+1set_hi", "<zone", "<beyond",
 };
 
 struct sd_table *aout_muscle_table(int with_label)
 {
-	return tbl_new(with_label ? 14 : 13, muscle_heads + (with_label ? 0 : 1));
+	return tbl_new(with_label ? 19 : 18, muscle_heads + (with_label ? 0 : 1));
 }
 
 int aout_muscle_rows(struct sd_table *t, const struct sd_audit_info *in, int with_label)
@@ -65,6 +151,7 @@ int aout_muscle_rows(struct sd_table *t, const struct sd_audit_info *in, int wit
 	const struct sd_audit *a = in->audit;
 	for (int m = 0; m < SD_NMUSCLES; m++) {
 		const struct sd_audit_row *r = &a->row[m];
+		char beyond[32];
 		int c = 0;
 		if (tbl_row(t))
 			return -1;
@@ -76,13 +163,9 @@ int aout_muscle_rows(struct sd_table *t, const struct sd_audit_info *in, int wit
 		tbl_set(t, c++, "%.1f", r->dose.fractional);
 		tbl_set(t, c++, "%.1f", r->dose.max_session);
 		tbl_set(t, c++, "%d", r->dose.sessions);
-		tbl_set(t, c++, "%.1f", pct(r->pt.y));
-		tbl_set(t, c++, "%.1f", pct(r->pt.ci_lo));
-		tbl_set(t, c++, "%.1f", pct(r->pt.ci_hi));
-		tbl_set(t, c++, "%.1f", pct(r->pt.pi_lo));
-		tbl_set(t, c++, "%.1f", pct(r->pt.pi_hi));
-		tbl_set(t, c++, "%.2f", r->marg.pct);
+		c = gain_cells(t, c, r, 1);
 		tbl_set(t, c++, "%s", zone_name(r->zone));
+		tbl_set(t, c++, "%s", curve_beyond_names(r->pt.beyond, beyond, sizeof beyond));
 	}
 	return 0;
 }
@@ -90,19 +173,22 @@ int aout_muscle_rows(struct sd_table *t, const struct sd_audit_info *in, int wit
 void aout_sum_head(const struct sd_sumout *o)
 {
 	if (o->csv) {
-		fprintf(o->f, "%sprogram,muscle,fractional,gain_pct,ci_low,ci_high,marginal_pct,zone\n",
+		fprintf(o->f, "%sprogram,muscle,fractional,gain_pct,curve_low,curve_high,athlete_low,"
+			"athlete_high,plus1_pct,plus1_low,plus1_high,zone,beyond_evidence\n",
 			o->with_athlete ? "athlete," : "");
 		return;
 	}
 	if (o->with_athlete)
 		fprintf(o->f, "%-*s  ", o->wa, "athlete");
-	fprintf(o->f, "%-*s  %-11s  %10s  %6s  %7s  %7s  %7s  %s\n", o->wp, "program", "muscle",
-		"fractional", "gain%", "ci_low", "ci_high", "+1set%", "zone");
+	fprintf(o->f, "%-*s  %-11s  %10s  %6s  %8s  %8s  %10s  %10s  %6s  %8s  %8s  %s\n", o->wp,
+		"program", "muscle", "fractional", "gain%", "curve_lo", "curve_hi", "athlete_lo",
+		"athlete_hi", "+1set%", "+1set_lo", "+1set_hi", "zone");
 }
 
 void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
 {
 	const struct sd_audit *a = in->audit;
+	char beyond[32];
 	for (int m = 0; m < SD_NMUSCLES; m++) {
 		const struct sd_audit_row *r = &a->row[m];
 		if (o->csv) {
@@ -111,16 +197,22 @@ void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
 				fputc(',', o->f);
 			}
 			tbl_csv_field(o->f, in->label);
-			fprintf(o->f, ",%s,%.2f,%.3f,%.3f,%.3f,%.4f,%s\n", muscle_name(m),
-				r->dose.fractional, pct(r->pt.y), pct(r->pt.ci_lo), pct(r->pt.ci_hi),
-				r->marg.pct, zone_name(r->zone));
+			fprintf(o->f, ",%s,%.2f,%.3f,%.3f,%.3f,%.3f,%.3f,%.4f,%.4f,%.4f,%s,%s\n",
+				muscle_name(m), r->dose.fractional, pct(r->pt.y), pct(r->pt.ci_lo),
+				pct(r->pt.ci_hi), pct(r->pt.ath_lo), pct(r->pt.ath_hi), r->plus1.pct,
+				r->plus1.lo, r->plus1.hi, zone_name(r->zone),
+				curve_beyond_names(r->pt.beyond, beyond, sizeof beyond));
 			continue;
 		}
 		if (o->with_athlete)
 			fprintf(o->f, "%-*s  ", o->wa, in->athlete ? in->athlete : "");
-		fprintf(o->f, "%-*s  %-11s  %10.1f  %6.1f  %7.1f  %7.1f  %7.2f  %s\n", o->wp, in->label,
-			muscle_name(m), r->dose.fractional, pct(r->pt.y), pct(r->pt.ci_lo),
-			pct(r->pt.ci_hi), r->marg.pct, zone_name(r->zone));
+		fprintf(o->f, "%-*s  %-11s  %10.1f  %6.1f  %8.1f  %8.1f  %10.1f  %10.1f  %6.2f  %8.2f  "
+			"%8.2f  %s%s%s\n", o->wp, in->label, muscle_name(m), r->dose.fractional,
+			pct(r->pt.y), pct(r->pt.ci_lo), pct(r->pt.ci_hi), pct(r->pt.ath_lo),
+			pct(r->pt.ath_hi), r->plus1.pct, r->plus1.lo, r->plus1.hi, zone_name(r->zone),
+			r->pt.beyond & ~SD_BEYOND_DOSE ? ", beyond: " : "",
+			r->pt.beyond & ~SD_BEYOND_DOSE ? curve_beyond_names(r->pt.beyond & ~SD_BEYOND_DOSE,
+							 beyond, sizeof beyond) : "");
 	}
 }
 
@@ -140,13 +232,10 @@ static cJSON *muscle_json(const struct sd_audit *a, int m)
 	json_num(o, "lnrr", r->pt.y, 6);
 	json_num(o, "se", r->pt.se, 6);
 	json_num(o, "gain_pct", pct(r->pt.y), 3);
-	json_num(o, "ci_low", pct(r->pt.ci_lo), 3);
-	json_num(o, "ci_high", pct(r->pt.ci_hi), 3);
-	json_num(o, "pi_low", pct(r->pt.pi_lo), 3);
-	json_num(o, "pi_high", pct(r->pt.pi_hi), 3);
-	json_num(o, "marginal_pct", r->marg.pct, 4);
-	json_num(o, "marginal_low", r->marg.lo, 4);
-	json_num(o, "marginal_high", r->marg.hi, 4);
+	json_bands(o, &r->pt, 3);
+	json_num(o, "plus1_pct", r->plus1.pct, 4);
+	json_num(o, "plus1_low", r->plus1.lo, 4);
+	json_num(o, "plus1_high", r->plus1.hi, 4);
 	cJSON_AddStringToObject(o, "zone", zone_name(r->zone));
 	return o;
 }
@@ -169,11 +258,11 @@ int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
 	cJSON_AddNumberToObject(o, "sets_not_counted", a->vol.easy_sets);
 	cJSON_AddStringToObject(o, "status", status_name(a));
 	json_num(o, "weeks", a->cov.weeks, 2);
-	cJSON_AddStringToObject(o, "profile", in->prof->name);
+	json_profile(o, in->prof);
+	json_evidence(o, in->prof, &a->cov);
 	json_num(o, "level", a->level, 4);
 	json_num(o, "swc_pct", pct(in->prof->swc), 4);
 	json_num(o, "plateau", a->plateau, 2);
-	json_num(o, "evidence_max", in->prof->dose_max, 2);
 	ms = cJSON_AddArrayToObject(o, "muscles");
 	for (int m = 0; ms && m < SD_NMUSCLES; m++)
 		cJSON_AddItemToArray(ms, muscle_json(a, m));

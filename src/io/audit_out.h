@@ -40,5 +40,12 @@ int aout_json_item(FILE *f, const struct sd_audit_info *in, int first);
 void aout_json_end(FILE *f);
 
 extern const char aout_caution[];
+/* The three levels of uncertainty in one sentence, as every output names them (curve, group,
+ * athlete), and as three lines for text legends (aout_bands_text prints them). */
+extern const char aout_bands_legend[];
+extern const char *const aout_band_lines[3];
+void aout_bands_text(FILE *f, int level_pct);
+/* The profile's provenance in one line (profile_oneline). */
+void aout_profile_line(FILE *f, const struct sd_profile *p);
 
 #endif

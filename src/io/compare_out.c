@@ -11,9 +11,18 @@
 #include "audit_out.h"
 #include "table.h"
 
-static const char heterogeneity_note[] =
-	"Intervals of differences use only the coefficient covariance: for one athlete the "
-	"between-athlete heterogeneity cancels.";
+/* What the interval of a difference contains, for the profile at hand. */
+static const char *interval_note(const struct sd_profile *p)
+{
+	if (p->slopes)
+		return "Differences are for one athlete at two doses: the athlete's level cancels, "
+		       "but their own dose slope does not, so each interval adds the profile's "
+		       "random-slope variance (f(xB) - f(xA))^2 tau2_slope to the coefficient "
+		       "covariance.";
+	return "Differences are for one athlete at two doses: the athlete's level cancels and the "
+	       "profile has no random slopes, so the intervals assume every athlete shares the "
+	       "curve's dose slope (only the coefficient covariance enters).";
+}
 
 static double pct(double y)
 {
@@ -65,8 +74,8 @@ done:
 
 static struct sd_table *pair_table(const struct cmp_view *v, int k)
 {
-	static const char *const heads[] = { "<muscle", "delta%", "ci_low", "ci_high", "P(>SWC)",
-					     "P(<-SWC)", "<verdict" };
+	static const char *const heads[] = { "<muscle", "delta%", "ci_low", "ci_high", "dec_low",
+					     "dec_high", "<decision" };
 	struct sd_table *t = tbl_new(7, heads);
 	for (int m = 0; t && m < SD_NMUSCLES; m++) {
 		const struct cmp_diff *d = diff_of(v, k, m);
@@ -75,9 +84,9 @@ static struct sd_table *pair_table(const struct cmp_view *v, int k)
 		tbl_set(t, 1, "%.2f", pct(d->d));
 		tbl_set(t, 2, "%.2f", pct(d->lo));
 		tbl_set(t, 3, "%.2f", pct(d->hi));
-		tbl_set(t, 4, "%.3f", d->p_gain);
-		tbl_set(t, 5, "%.3f", d->p_loss);
-		tbl_set(t, 6, "%s", cmp_verdict_text(d->verdict));
+		tbl_set(t, 4, "%.2f", pct(d->dlo));
+		tbl_set(t, 5, "%.2f", pct(d->dhi));
+		tbl_set(t, 6, "%s", cmp_decision_name(d->decision));
 	}
 	return t;
 }
@@ -131,6 +140,9 @@ void cmp_out_table(FILE *f, const struct cmp_view *v, int color)
 		pct(v->prof->swc), lvl);
 	for (int i = 0; i < v->n; i++)
 		fprintf(f, "  %c  %s (%s)\n", key(i), v->prog[i].name, v->label[i]);
+	char note[240];
+	if (curve_context_note(v->prof, &a0->cov, note, sizeof note))
+		fprintf(f, "%swarning:%s %s\n", color ? "\033[33m" : "", color ? "\033[0m" : "", note);
 	fprintf(f, "\nweekly fractional sets and predicted gain (%%) per muscle\n");
 	if ((t = side_by_side(v)))
 		tbl_print(t, f, 0);
@@ -146,9 +158,13 @@ void cmp_out_table(FILE *f, const struct cmp_view *v, int color)
 	if ((t = totals_table(v)))
 		tbl_print(t, f, 0);
 	tbl_free(t);
-	fprintf(f, "\nP(>SWC): probability the difference exceeds the SWC. worthwhile: beyond the SWC, "
-		"interval excludes 0;\nreal but trivial: interval excludes 0, within the SWC; unsure: "
-		"beyond the SWC, interval includes 0.\n%s\n", heterogeneity_note);
+	fprintf(f, "\nci: the %d%% interval of the difference; dec: the %.0f%% decision interval, each "
+		"decision being one-sided\ntests at %.0f%% (two for equivalence: Schuirmann 1987). "
+		"decision:\n", lvl, 100 * cmp_decision_level(v->level), 100 * (1 - v->level));
+	for (int k = 0; k < CMP_NDECISIONS; k++)
+		fprintf(f, "  %-11s %s\n", cmp_decision_name((enum cmp_decision)k),
+			cmp_decision_meaning((enum cmp_decision)k));
+	fprintf(f, "%s\n", interval_note(v->prof));
 	if (v->note)
 		fprintf(f, "note: %s\n", v->note);
 	for (int i = 0; i < v->n; i++)
@@ -160,7 +176,7 @@ void cmp_out_table(FILE *f, const struct cmp_view *v, int color)
 
 int cmp_out_csv(FILE *f, const struct cmp_view *v)
 {
-	fprintf(f, "program,source,muscle,fractional,gain_pct,ci_low,ci_high,zone\n");
+	fprintf(f, "program,source,muscle,fractional,gain_pct,curve_low,curve_high,zone\n");
 	for (int i = 0; i < v->n; i++)
 		for (int m = 0; m < SD_NMUSCLES; m++) {
 			const struct sd_audit_row *r = &v->audit[i].row[m];
@@ -170,13 +186,13 @@ int cmp_out_csv(FILE *f, const struct cmp_view *v)
 				pct(r->pt.y), pct(r->pt.ci_lo), pct(r->pt.ci_hi), zone_name(r->zone));
 		}
 	fprintf(f, "\nfirst,second,muscle,sets_first,sets_second,delta_pct,ci_low,ci_high,"
-		"p_above_swc,p_below_minus_swc,verdict\n");
+		"dec_low,dec_high,decision\n");
 	for (int k = 0; k < v->npairs; k++)
 		for (int m = 0; m < SD_NMUSCLES; m++) {
 			const struct cmp_diff *d = diff_of(v, k, m);
 			fprintf(f, "%c,%c,%s,%.2f,%.2f,%.4f,%.4f,%.4f,%.4f,%.4f,%s\n", key(v->pair[k][0]),
 				key(v->pair[k][1]), muscle_name(m), d->xa, d->xb, pct(d->d), pct(d->lo),
-				pct(d->hi), d->p_gain, d->p_loss, cmp_verdict_name(d->verdict));
+				pct(d->hi), pct(d->dlo), pct(d->dhi), cmp_decision_name(d->decision));
 		}
 	fprintf(f, "\nprogram,hard_sets,sessions,sets_per_session,under_plateau,past_plateau,"
 		"beyond_evidence,over_session_cap\n");
@@ -218,8 +234,8 @@ static cJSON *program_json(const struct cmp_view *v, int i)
 		json_num(x, "fractional", r->dose.fractional, 2);
 		json_num(x, "max_per_session", r->dose.max_session, 2);
 		json_num(x, "gain_pct", pct(r->pt.y), 3);
-		json_num(x, "ci_low", pct(r->pt.ci_lo), 3);
-		json_num(x, "ci_high", pct(r->pt.ci_hi), 3);
+		json_num(x, "curve_low", pct(r->pt.ci_lo), 3);
+		json_num(x, "curve_high", pct(r->pt.ci_hi), 3);
 		cJSON_AddStringToObject(x, "zone", zone_name(r->zone));
 		cJSON_AddItemToArray(ms, x);
 	}
@@ -262,9 +278,9 @@ static cJSON *pair_json(const struct cmp_view *v, int k)
 		json_num(x, "delta_pct", pct(d->d), 4);
 		json_num(x, "ci_low", pct(d->lo), 4);
 		json_num(x, "ci_high", pct(d->hi), 4);
-		json_num(x, "p_above_swc", d->p_gain, 6);
-		json_num(x, "p_below_minus_swc", d->p_loss, 6);
-		cJSON_AddStringToObject(x, "verdict", cmp_verdict_name(d->verdict));
+		json_num(x, "dec_low", pct(d->dlo), 4);
+		json_num(x, "dec_high", pct(d->dhi), 4);
+		cJSON_AddStringToObject(x, "decision", cmp_decision_name(d->decision));
 		cJSON_AddItemToArray(ms, x);
 	}
 	return o;
@@ -280,8 +296,10 @@ int cmp_out_json(FILE *f, const struct cmp_view *v)
 		return -1;
 	cJSON_AddStringToObject(o, "status", v->audit[0].cov.trained >= 0.5 ? "trained" : "untrained");
 	json_num(o, "weeks", v->audit[0].cov.weeks, 2);
-	cJSON_AddStringToObject(o, "profile", v->prof->name);
+	json_profile(o, v->prof);
+	json_evidence(o, v->prof, &v->audit[0].cov);
 	json_num(o, "level", v->level, 4);
+	json_num(o, "decision_level", cmp_decision_level(v->level), 4);
 	json_num(o, "swc_pct", pct(v->prof->swc), 4);
 	json_num(o, "plateau", v->audit[0].plateau, 2);
 	json_num(o, "session_cap", v->cap, 4);
@@ -291,7 +309,7 @@ int cmp_out_json(FILE *f, const struct cmp_view *v)
 	cs = cJSON_AddArrayToObject(o, "comparisons");
 	for (int k = 0; cs && k < v->npairs; k++)
 		cJSON_AddItemToArray(cs, pair_json(v, k));
-	cJSON_AddStringToObject(o, "intervals", heterogeneity_note);
+	cJSON_AddStringToObject(o, "intervals", interval_note(v->prof));
 	if (v->note)
 		cJSON_AddStringToObject(o, "note", v->note);
 	cJSON_AddStringToObject(o, "caution", aout_caution);

@@ -1,9 +1,10 @@
-/* An ordered INI scanner with line numbers, for programs and the exercise library.
+/* An ordered INI scanner with line numbers, for programs, the exercise library and profiles.
  *
- * iniparser (used for profiles) keeps neither the order of sections nor line numbers, drops
- * duplicate keys silently, and loads in quadratic time; programs need all four, and the
- * library is read on every run. Syntax: `[section]`, `key = value`, comments from ';' or '#'
- * (at the start of a line, or after a value), blank lines. Keys and sections keep their case. */
+ * iniparser keeps neither the order of sections nor line numbers, drops duplicate keys
+ * silently, and loads in quadratic time; programs need all four, profiles the line numbers
+ * and the duplicates, and the library is read on every run. Syntax: `[section]`,
+ * `key = value`, comments from ';' or '#' (at the start of a line, or after a value), blank
+ * lines. Keys and sections keep their case. */
 #ifndef SD_INI_H
 #define SD_INI_H
 

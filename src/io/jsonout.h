@@ -4,8 +4,23 @@
 
 #include <cjson/cJSON.h>
 
+#include "../core/curve.h"
+
 /* Adds a number rounded to `digits` decimals, so output is stable across platforms'
  * last-digit noise. */
 void json_num(cJSON *o, const char *key, double v, int digits);
+/* Adds "profile": {"name", "basis", "summary"}: what the numbers come from. */
+void json_profile(cJSON *o, const struct sd_profile *p);
+/* The same object as text (malloc'd), for writers that assemble JSON from pieces. */
+char *json_profile_text(const struct sd_profile *p);
+/* Adds the three intervals of a point in percent under their names ("curve_low",
+ * "curve_high", "group_low", "group_high", "athlete_low", "athlete_high") and
+ * "beyond_evidence": the list of values outside the evidence (empty when none). */
+void json_bands(cJSON *o, const struct sd_point *pt, int digits);
+/* Adds "evidence": the profile's ranges, {"dose": {"low", "high"}, "weeks": {"low", "high",
+ * "value", "used", "beyond"}, ...}, with the context's value of each moderator it carries. */
+void json_evidence(cJSON *o, const struct sd_profile *p, const struct sd_covars *c);
+/* Adds "beyond_evidence": ["dose", "weeks", ...] for SD_BEYOND_* bits. */
+void json_beyond(cJSON *o, unsigned bits);
 
 #endif

@@ -15,8 +15,9 @@
 /* This project's palette: slate text, a teal curve on sand-coloured bands. */
 #define INK 0.16, 0.20, 0.25
 #define GRID 0.86, 0.86, 0.84
-#define BAND_PI 0.93, 0.89, 0.80
-#define BAND_CI 0.80, 0.74, 0.60
+#define BAND_ATH 0.96, 0.94, 0.89
+#define BAND_GROUP 0.90, 0.85, 0.74
+#define BAND_CI 0.78, 0.71, 0.56
 #define CURVE 0.05, 0.45, 0.47
 #define MARK 0.70, 0.25, 0.15
 
@@ -68,14 +69,25 @@ static void text(cairo_t *cr, double x, double y, double size, int bold, double 
 	cairo_show_text(cr, s);
 }
 
-static void band(cairo_t *cr, const struct frame *f, const struct sd_chart *c, int pred)
+enum band_kind { B_CURVE, B_GROUP, B_ATHLETE };
+
+static double band_edge(const struct sd_point *pt, enum band_kind k, int high)
+{
+	switch (k) {
+	case B_GROUP: return high ? pt->group_hi : pt->group_lo;
+	case B_ATHLETE: return high ? pt->ath_hi : pt->ath_lo;
+	default: return high ? pt->ci_hi : pt->ci_lo;
+	}
+}
+
+static void band(cairo_t *cr, const struct frame *f, const struct sd_chart *c, enum band_kind k)
 {
 	const int n = 120;
 	struct sd_point pt;
 	for (int i = 0; i <= n; i++) {
 		double x = f->x0 + (f->x1 - f->x0) * i / n;
 		curve_eval(c->prof, &c->cov, x, c->level, &pt);
-		double v = curve_pct(pred ? pt.pi_hi : pt.ci_hi);
+		double v = curve_pct(band_edge(&pt, k, 1));
 		if (i == 0)
 			cairo_move_to(cr, px(f, x), py(f, v));
 		else
@@ -84,7 +96,7 @@ static void band(cairo_t *cr, const struct frame *f, const struct sd_chart *c, i
 	for (int i = n; i >= 0; i--) {
 		double x = f->x0 + (f->x1 - f->x0) * i / n;
 		curve_eval(c->prof, &c->cov, x, c->level, &pt);
-		cairo_line_to(cr, px(f, x), py(f, curve_pct(pred ? pt.pi_lo : pt.ci_lo)));
+		cairo_line_to(cr, px(f, x), py(f, curve_pct(band_edge(&pt, k, 0))));
 	}
 	cairo_close_path(cr);
 	cairo_fill(cr);
@@ -163,8 +175,8 @@ static void draw_chart(cairo_t *cr, const struct sd_chart *c, double x, double y
 	f.x1 = xmax;
 	for (int i = 0; i <= 60; i++) {
 		curve_eval(c->prof, &c->cov, xmax * i / 60, c->level, &pt);
-		lo = fmin(lo, curve_pct(pt.pi_lo));
-		hi = fmax(hi, curve_pct(pt.pi_hi));
+		lo = fmin(lo, curve_pct(pt.ath_lo));
+		hi = fmax(hi, curve_pct(pt.ath_hi));
 	}
 	f.y0 = floor(lo / 5) * 5;
 	f.y1 = ceil(hi / 5) * 5;
@@ -175,11 +187,18 @@ static void draw_chart(cairo_t *cr, const struct sd_chart *c, double x, double y
 		 c->cov.trained >= 0.5 ? "trained" : "untrained", c->cov.weeks, c->prof->name,
 		 c->level * 100);
 	text(cr, x + w - 16, y + 18, 10, 0, 1, buf);
+	/* A block length or status outside the evidence is said on the chart itself. */
+	if (curve_context_note(c->prof, &c->cov, buf, sizeof buf)) {
+		cairo_set_source_rgb(cr, MARK);
+		text(cr, x + w - 16, y + 30, 9, 1, 1, buf);
+	}
 
-	cairo_set_source_rgb(cr, BAND_PI);
-	band(cr, &f, c, 1);
+	cairo_set_source_rgb(cr, BAND_ATH);
+	band(cr, &f, c, B_ATHLETE);
+	cairo_set_source_rgb(cr, BAND_GROUP);
+	band(cr, &f, c, B_GROUP);
 	cairo_set_source_rgb(cr, BAND_CI);
-	band(cr, &f, c, 0);
+	band(cr, &f, c, B_CURVE);
 	axes(cr, &f);
 	snprintf(buf, sizeof buf, "plateau %g", plateau);
 	vline(cr, &f, plateau, buf);
@@ -236,26 +255,34 @@ static void draw_chart(cairo_t *cr, const struct sd_chart *c, double x, double y
 			text(cr, mx, ly, 8.5, 0, 0.5, names);
 		}
 	}
-	/* Legend */
-	double lx = f.x + f.w - 190, ly = f.y + f.h - 52;
+	/* Legend: what each band means, in the words every output uses. */
+	static const char *const what[] = {
+		"the average curve (confidence interval)",
+		"a new group or study (+ between-study spread)",
+		"one athlete (+ between-athlete spread)",
+	};
+	double lx = f.x + f.w - 250, ly = f.y + f.h - 68;
 	cairo_set_source_rgb(cr, 1, 1, 1);
-	cairo_rectangle(cr, lx - 6, ly - 12, 190, 52);
+	cairo_rectangle(cr, lx - 6, ly - 12, 250, 68);
 	cairo_fill(cr);
 	cairo_set_source_rgb(cr, CURVE);
 	cairo_rectangle(cr, lx, ly - 5, 16, 3);
 	cairo_fill(cr);
-	cairo_set_source_rgb(cr, BAND_CI);
-	cairo_rectangle(cr, lx, ly + 8, 16, 8);
-	cairo_fill(cr);
-	cairo_set_source_rgb(cr, BAND_PI);
-	cairo_rectangle(cr, lx, ly + 24, 16, 8);
-	cairo_fill(cr);
 	cairo_set_source_rgb(cr, INK);
-	text(cr, lx + 22, ly, 9, 0, 0, "mean (average athlete)");
-	snprintf(buf, sizeof buf, "%.0f%% confidence band", c->level * 100);
-	text(cr, lx + 22, ly + 16, 9, 0, 0, buf);
-	snprintf(buf, sizeof buf, "%.0f%% prediction band (one athlete)", c->level * 100);
-	text(cr, lx + 22, ly + 32, 9, 0, 0, buf);
+	text(cr, lx + 22, ly, 9, 0, 0, "mean");
+	for (int i = 0; i < 3; i++) {
+		if (i == 0)
+			cairo_set_source_rgb(cr, BAND_CI);
+		else if (i == 1)
+			cairo_set_source_rgb(cr, BAND_GROUP);
+		else
+			cairo_set_source_rgb(cr, BAND_ATH);
+		cairo_rectangle(cr, lx, ly + 8 + 16 * i, 16, 8);
+		cairo_fill(cr);
+		cairo_set_source_rgb(cr, INK);
+		snprintf(buf, sizeof buf, "%.0f%% %s", c->level * 100, what[i]);
+		text(cr, lx + 22, ly + 16 + 16 * i, 9, 0, 0, buf);
+	}
 }
 
 static int finish(cairo_surface_t *s, cairo_t *cr, const char *path, enum fmt fmt,
@@ -291,7 +318,8 @@ static cairo_surface_t *surface(enum fmt fmt, const char *path, double w, double
 int chart_write(const char *path, const struct sd_chart *c, struct sd_err *e)
 {
 	enum fmt fmt = format_of(path);
-	double w = 900, h = 560;
+	double w = 900, h = 572;
+	char buf[300];
 	cairo_surface_t *s;
 	cairo_t *cr;
 
@@ -309,6 +337,8 @@ int chart_write(const char *path, const struct sd_chart *c, struct sd_err *e)
 	cairo_paint(cr);
 	draw_chart(cr, c, 0, 0, w, h);
 	cairo_set_source_rgb(cr, INK);
+	profile_oneline(c->prof, buf, sizeof buf);
+	text(cr, 16, h - 22, 8.5, 0, 0, buf);
 	text(cr, 16, h - 10, 8.5, 0, 0, aout_caution);
 	return finish(s, cr, path, fmt, e);
 }
@@ -354,13 +384,16 @@ static double para(cairo_t *cr, double x, double y, double width, double size, c
 
 static void report_page(cairo_t *cr, const struct sd_audit_info *in, double w)
 {
-	static const char *const heads[] = { "muscle", "direct", "indirect", "frac.", "max/day",
-					      "gain %", "CI", "PI", "+1 set", "zone" };
+	static const char *const heads[] = { "muscle", "direct", "indirect", "frac.", "gain %",
+					      "curve", "group", "athlete", "+1 set", "+1 set int.",
+					      "zone" };
 	/* Left edge of the name and zone columns, right edge of the numeric ones. */
-	static const double col[] = { 40, 150, 192, 240, 284, 322, 392, 452, 494, 504 };
+	static const double col[] = { 40, 128, 162, 192, 222, 278, 334, 392, 428, 486, 494 };
+	enum { NC = 11 };
 	const struct sd_audit *a = in->audit;
-	char buf[256];
+	char buf[300];
 	double y = 50;
+	int lvl = (int)lround(a->level * 100);
 
 	cairo_set_source_rgb(cr, INK);
 	text(cr, 40, y, 16, 1, 0, in->prog->name);
@@ -370,8 +403,8 @@ static void report_page(cairo_t *cr, const struct sd_audit_info *in, double w)
 		 a->vol.hard_sets, a->cov.trained >= 0.5 ? "trained" : "untrained", a->cov.weeks,
 		 in->prof->name);
 	y = para(cr, 40, y, w - 80, 9, buf) + 8;
-	for (int i = 0; i < 10; i++)
-		text(cr, col[i], y, 8.5, 1, i == 0 || i == 9 ? 0 : 1, heads[i]);
+	for (int i = 0; i < NC; i++)
+		text(cr, col[i], y, 7.5, 1, i == 0 || i == NC - 1 ? 0 : 1, heads[i]);
 	y += 4;
 	cairo_set_line_width(cr, 0.5);
 	cairo_move_to(cr, 40, y);
@@ -380,22 +413,26 @@ static void report_page(cairo_t *cr, const struct sd_audit_info *in, double w)
 	y += 11;
 	for (int m = 0; m < SD_NMUSCLES; m++) {
 		const struct sd_audit_row *r = &a->row[m];
-		char cells[10][48];
+		char cells[NC][48];
 		snprintf(cells[0], 48, "%s", muscle_name(m));
 		snprintf(cells[1], 48, "%g", r->dose.direct);
 		snprintf(cells[2], 48, "%g", r->dose.indirect);
 		snprintf(cells[3], 48, "%.1f", r->dose.fractional);
-		snprintf(cells[4], 48, "%.1f", r->dose.max_session);
-		snprintf(cells[5], 48, "%.1f", curve_pct(r->pt.y));
-		snprintf(cells[6], 48, "%.1f to %.1f", curve_pct(r->pt.ci_lo), curve_pct(r->pt.ci_hi));
-		snprintf(cells[7], 48, "%.1f to %.1f", curve_pct(r->pt.pi_lo), curve_pct(r->pt.pi_hi));
-		snprintf(cells[8], 48, "%.2f", r->marg.pct);
-		snprintf(cells[9], 48, "%s", zone_name(r->zone));
-		for (int i = 0; i < 10; i++)
-			text(cr, col[i], y, 8.5, 0, i == 0 || i == 9 ? 0 : 1, cells[i]);
-		y += 12;
+		snprintf(cells[4], 48, "%.1f", curve_pct(r->pt.y));
+		snprintf(cells[5], 48, "%.1f to %.1f", curve_pct(r->pt.ci_lo), curve_pct(r->pt.ci_hi));
+		snprintf(cells[6], 48, "%.1f to %.1f", curve_pct(r->pt.group_lo), curve_pct(r->pt.group_hi));
+		snprintf(cells[7], 48, "%.1f to %.1f", curve_pct(r->pt.ath_lo), curve_pct(r->pt.ath_hi));
+		snprintf(cells[8], 48, "%.2f", r->plus1.pct);
+		snprintf(cells[9], 48, "%.2f to %.2f", r->plus1.lo, r->plus1.hi);
+		snprintf(cells[10], 48, "%s", zone_name(r->zone));
+		for (int i = 0; i < NC; i++)
+			text(cr, col[i], y, 7.5, 0, i == 0 || i == NC - 1 ? 0 : 1, cells[i]);
+		y += 11;
 	}
-	y += 6;
+	y += 4;
+	snprintf(buf, sizeof buf, "%d%% intervals. %s. +1 set: percentage points one more weekly "
+		 "set adds on the average curve.", lvl, aout_bands_legend);
+	y = para(cr, 40, y + 6, w - 80, 7.5, buf);
 	struct sd_chart c = { in->prof, a->cov, a->level, a, "The curve and this program's muscles" };
 	cairo_save(cr);
 	cairo_translate(cr, 20, y);
@@ -404,9 +441,11 @@ static void report_page(cairo_t *cr, const struct sd_audit_info *in, double w)
 	cairo_restore(cr);
 	y += 520 * (w - 40) / 900.0 + 10;
 	cairo_set_source_rgb(cr, INK);
-	for (int i = 0; i < a->nwarn && y < 780; i++)
+	for (int i = 0; i < a->nwarn && y < 770; i++)
 		y = para(cr, 40, y, w - 80, 8.5, a->warn[i].text);
-	para(cr, 40, 800, w - 80, 8, aout_caution);
+	profile_oneline(in->prof, buf, sizeof buf);
+	para(cr, 40, 788, w - 80, 8, buf);
+	para(cr, 40, 802, w - 80, 8, aout_caution);
 }
 
 int report_write(const char *path, const struct sd_audit_info *in, int n, struct sd_err *e)

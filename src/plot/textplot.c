@@ -63,10 +63,10 @@ void tplot_curve(struct sd_tplot *p, const struct sd_profile *prof, const struct
 	p->x1 = xmax > 0 ? xmax : 1;
 	for (int col = 0; col < p->w; col++) {
 		curve_eval(prof, c, p->x0 + (p->x1 - p->x0) * col / (p->w - 1), level, &pt);
-		if (curve_pct(pt.pi_lo) < lo)
-			lo = curve_pct(pt.pi_lo);
-		if (curve_pct(pt.pi_hi) > hi)
-			hi = curve_pct(pt.pi_hi);
+		if (curve_pct(pt.ath_lo) < lo)
+			lo = curve_pct(pt.ath_lo);
+		if (curve_pct(pt.ath_hi) > hi)
+			hi = curve_pct(pt.ath_hi);
 	}
 	/* Round the axis to whole 5 % steps so the labels read cleanly. */
 	p->y0 = floor(lo / 5) * 5;
@@ -75,7 +75,8 @@ void tplot_curve(struct sd_tplot *p, const struct sd_profile *prof, const struct
 		p->y1 = p->y0 + 5;
 	for (int col = 0; col < p->w; col++) {
 		curve_eval(prof, c, p->x0 + (p->x1 - p->x0) * col / (p->w - 1), level, &pt);
-		fill(p, col, curve_pct(pt.pi_lo), curve_pct(pt.pi_hi), TP_PI);
+		fill(p, col, curve_pct(pt.ath_lo), curve_pct(pt.ath_hi), TP_ATHLETE);
+		fill(p, col, curve_pct(pt.group_lo), curve_pct(pt.group_hi), TP_GROUP);
 		fill(p, col, curve_pct(pt.ci_lo), curve_pct(pt.ci_hi), TP_CI);
 		fill(p, col, curve_pct(pt.y), curve_pct(pt.y), TP_MEAN);
 	}
@@ -91,8 +92,8 @@ void tplot_mark(struct sd_tplot *p, double x, double y, char letter)
 const char *tplot_glyph(const struct sd_tplot *p, int col, int row, int unicode, char *buf)
 {
 	size_t i = (size_t)row * (size_t)p->w + (size_t)col;
-	static const char *const uni[] = { " ", "\u2591", "\u2592", "\u2588", "", "\u2502" };
-	static const char *const ascii[] = { " ", ".", ":", "#", "", "|" };
+	static const char *const uni[] = { " ", "\u2591", "\u2592", "\u2593", "\u2588", "", "\u2502" };
+	static const char *const ascii[] = { " ", ".", ":", "=", "#", "", "|" };
 	if (p->kind[i] == TP_MARK) {
 		buf[0] = p->mark[i];
 		buf[1] = '\0';

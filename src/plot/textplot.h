@@ -9,7 +9,8 @@
 
 #include "../core/curve.h"
 
-enum { TP_EMPTY, TP_PI, TP_CI, TP_MEAN, TP_MARK, TP_CURSOR };
+/* Cell kinds, widest band first: one athlete, a new group or study, the average curve. */
+enum { TP_EMPTY, TP_ATHLETE, TP_GROUP, TP_CI, TP_MEAN, TP_MARK, TP_CURSOR };
 
 struct sd_tplot {
 	int w, h;                  /* plot area in cells (no axes) */
@@ -20,8 +21,8 @@ struct sd_tplot {
 
 struct sd_tplot *tplot_new(int w, int h);
 void tplot_free(struct sd_tplot *p);
-/* Fills the bands and the mean of the curve over [0, xmax] (percent scale); the y range
- * covers the prediction band. */
+/* Fills the three bands and the mean of the curve over [0, xmax] (percent scale); the y range
+ * covers the widest band (one athlete). */
 void tplot_curve(struct sd_tplot *p, const struct sd_profile *prof, const struct sd_covars *c,
 		 double level, double xmax);
 /* Column of dose x and row of percent y (clamped to the grid). */

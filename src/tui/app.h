@@ -17,7 +17,7 @@
 enum tui_role {
 	TR_PLAIN, TR_TITLE, TR_HEAD, TR_SEL, TR_DIM, TR_ERR, TR_OK, TR_KEY, TR_WARN,
 	TR_NONE, TR_CLIMB, TR_PLATEAU, TR_BEYOND,
-	TR_PI, TR_CI, TR_MEAN, TR_MARK, TR_CURSOR, TR_AXIS, TR_NROLES
+	TR_ATHB, TR_PI, TR_CI, TR_MEAN, TR_MARK, TR_CURSOR, TR_AXIS, TR_NROLES
 };
 
 /* A key binding: up to three key codes, the action code the view switches on, and the text
@@ -67,6 +67,7 @@ struct tui_obs {
 /* The open athlete's personal response, from the response command's own computation. */
 struct tui_resp {
 	int ok;
+	int estimated;                   /* variances from the roster (REML), else the priors */
 	int n, nblocks;
 	double pct, lo, hi, weight;
 	struct tui_obs *obs;

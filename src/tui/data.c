@@ -48,9 +48,17 @@ void tui_context_text(const struct tui_app *a, char *buf, size_t n)
 	const struct tui_context *c = &a->st.context;
 	int len = snprintf(buf, n, "%s, %.3g-week block", c->trained ? "trained" : "untrained",
 			   c->weeks);
+	struct sd_covars cov = tui_covars(a);
+	char names[32];
+	unsigned beyond = curve_beyond(&a->ctx->profile, &cov, a->ctx->profile.dose_min);
+
 	if (tui_context_changed(c) && len > 0 && (size_t)len < n)
-		snprintf(buf + len, n - (size_t)len, " (own: %s, %.3g wk)",
-			 c->base_trained ? "trained" : "untrained", c->base_weeks);
+		len += snprintf(buf + len, n - (size_t)len, " (own: %s, %.3g wk)",
+				c->base_trained ? "trained" : "untrained", c->base_weeks);
+	/* A block length or status outside the profile's evidence is flagged in every view. */
+	if ((beyond &= ~(unsigned)SD_BEYOND_DOSE) && len > 0 && (size_t)len < n)
+		snprintf(buf + len, n - (size_t)len, "; %s beyond the evidence",
+			 curve_beyond_names(beyond, names, sizeof names));
 }
 
 void tui_filter_roster(struct tui_app *a)
@@ -139,7 +147,7 @@ void tui_resp_free(struct tui_resp *r)
 /* The same computation as `setdose response ATHLETE` (cmd/respdata.c), with its defaults. */
 static void load_response(struct tui_app *a)
 {
-	struct resp_opts ro = { RESP_TEST_SD, RESP_PRIOR_SD, a->ctx->opt.level };
+	struct resp_opts ro = { RESP_TEST_SD, RESPD_PRIOR_PROFILE, a->ctx->opt.level, 0 };
 	struct resp_data d;
 	struct sd_err e;
 	struct tui_resp *r = &a->resp;
@@ -174,6 +182,7 @@ static void load_response(struct tui_app *a)
 	r->lo = curve_pct(d.personal.lo);
 	r->hi = curve_pct(d.personal.hi);
 	r->weight = d.personal.weight;
+	r->estimated = d.vars.estimated;
 	r->ok = 1;
 	respd_free(&d);
 }

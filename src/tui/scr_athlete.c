@@ -92,8 +92,9 @@ static void draw_response(struct tui_app *a, int y)
 			"this is the prior");
 		return;
 	}
-	tui_putf(y + 2, 2, COLS - 3, TR_DIM, "from %d observation%s in %d completed block%s; latest: "
-		 "block %lld %s %+.1f%% (predicted %+.1f%%, percentile %.0f)", r->n, r->n == 1 ? "" : "s",
+	tui_putf(y + 2, 2, COLS - 3, TR_DIM, "%s; from %d observation%s in %d completed block%s; "
+		 "latest: block %lld %s %+.1f%% (predicted %+.1f%%, percentile %.0f)",
+		 r->estimated ? "roster variances (REML)" : "prior variances", r->n, r->n == 1 ? "" : "s",
 		 r->nblocks, r->nblocks == 1 ? "" : "s", r->obs[r->nobs - 1].block,
 		 r->obs[r->nobs - 1].lift, r->obs[r->nobs - 1].change, r->obs[r->nobs - 1].predicted,
 		 r->obs[r->nobs - 1].pctile);

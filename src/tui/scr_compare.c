@@ -1,7 +1,6 @@
 /* The compare view: two templates side by side per muscle, for the same athlete context. The
- * difference B - A of the predicted gains, its interval, the chances it exceeds the smallest
- * worthwhile change either way and the verdict all come from core/compare.h (cmp_muscle), as
- * in the compare command. */
+ * difference B - A of the predicted gains, its interval and the decision against the smallest
+ * worthwhile change all come from core/compare.h (cmp_muscle), as in the compare command. */
 #include <curses.h>
 #include <math.h>
 #include <stdio.h>
@@ -71,8 +70,9 @@ static void draw(struct tui_app *a)
 	tui_putf(1, COLS / 2, COLS - COLS / 2 - 1, TR_PLAIN, "%d hard sets a week", a->a.audit.vol.hard_sets);
 	tui_putf(2, COLS / 2, COLS - COLS / 2 - 1, TR_PLAIN, "%d hard sets a week", a->b.audit.vol.hard_sets);
 	tui_context_text(a, ctx, sizeof ctx);
-	tui_putf(3, 1, COLS - 2, TR_DIM, "%s; diff: B's predicted 1RM over A's, %d%% CI; P gain / loss: "
-		 "chance it is beyond +/- the SWC %.1f%%", ctx, lvl, curve_pct(p->swc));
+	tui_putf(3, 1, COLS - 2, TR_DIM, "%s; diff: B's predicted 1RM over A's, %d%% CI; decision: "
+		 "the %.0f%% interval against +/- the SWC %.1f%%", ctx, lvl,
+		 100 * cmp_decision_level(a->ctx->opt.level), curve_pct(p->swc));
 	for (int m = 0; m < SD_NMUSCLES; m++) {
 		pair_of(a, m, &pr[m]);
 		if (fabs(pr[m].xb - pr[m].xa) > span)
@@ -87,8 +87,7 @@ static void draw(struct tui_app *a)
 	tui_putf(top - 1, gx, gw, TR_HEAD, "%*s", gw / 2 + 3, "B - A");
 	tui_put(top - 1, gx + gw + 1, 6, TR_HEAD, " diff%");
 	tui_putf(top - 1, gx + gw + 8, 15, TR_HEAD, "    %d%% CI", lvl);
-	tui_put(top - 1, gx + gw + 24, 6, TR_HEAD, "P gain");
-	tui_put(top - 1, gx + gw + 31, 6, TR_HEAD, "P loss");
+	tui_put(top - 1, gx + gw + 24, 12, TR_HEAD, "decision");
 	tui_list_fit(&a->st.pairs, rows);
 	for (int r = 0; r < a->st.pairs.rows && a->st.pairs.top + r < SD_NMUSCLES; r++) {
 		int m = a->st.pairs.top + r, y = top + r, sel = m == a->st.pairs.sel;
@@ -102,8 +101,8 @@ static void draw(struct tui_app *a)
 		diff_gauge(a, y, gx, gw, q->xb - q->xa, span);
 		tui_putf(y, gx + gw + 1, 6, role, "%+6.1f", curve_pct(q->d));
 		tui_putf(y, gx + gw + 8, 15, role, "%6.1f to %-6.1f", curve_pct(q->lo), curve_pct(q->hi));
-		tui_putf(y, gx + gw + 24, 6, q->p_gain >= 0.5 && !sel ? TR_OK : role, "%6.2f", q->p_gain);
-		tui_putf(y, gx + gw + 31, 6, q->p_loss >= 0.5 && !sel ? TR_WARN : role, "%6.2f", q->p_loss);
+		tui_put(y, gx + gw + 24, 12, sel ? role : q->decision == CMP_CLEAR_GAIN ? TR_OK :
+			q->decision == CMP_CLEAR_LOSS ? TR_WARN : role, cmp_decision_name(q->decision));
 	}
 	{
 		int m = a->st.pairs.sel;
@@ -112,9 +111,11 @@ static void draw(struct tui_app *a)
 		tui_putf(LINES - 4, 1, COLS - 2, TR_PLAIN, "%s: A %.1f sets, gain %+.1f%% (%s); B %.1f sets, "
 			 "gain %+.1f%% (%s)", muscle_name(m), q->xa, curve_pct(ra->pt.y), zone_name(ra->zone),
 			 q->xb, curve_pct(rb->pt.y), zone_name(rb->zone));
-		tui_putf(LINES - 3, 1, COLS - 2, TR_PLAIN, "B over A %+.1f%% (%d%% CI %.1f to %.1f): %s",
-			 curve_pct(q->d), lvl, curve_pct(q->lo), curve_pct(q->hi),
-			 cmp_verdict_text(q->verdict));
+		tui_putf(LINES - 3, 1, COLS - 2, TR_PLAIN, "B over A %+.1f%% (%d%% CI %.1f to %.1f): %s, "
+			 "the %.0f%% interval %.1f to %.1f is %s", curve_pct(q->d), lvl, curve_pct(q->lo),
+			 curve_pct(q->hi), cmp_decision_name(q->decision),
+			 100 * cmp_decision_level(a->ctx->opt.level), curve_pct(q->dlo), curve_pct(q->dhi),
+			 cmp_decision_meaning(q->decision));
 	}
 	tui_putf(LINES - 2, 1, COLS - 2, TR_DIM, "x swap A and B %s s status %s [ ] weeks %s Esc back",
 		 a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|");

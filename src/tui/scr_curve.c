@@ -70,7 +70,9 @@ static void init(struct tui_app *a)
 static enum tui_role cell_role(int kind)
 {
 	switch (kind) {
-	case TP_PI:
+	case TP_ATHLETE:
+		return TR_ATHB;
+	case TP_GROUP:
 		return TR_PI;
 	case TP_CI:
 		return TR_CI;
@@ -156,20 +158,21 @@ static void draw_readout(struct tui_app *a, int y, const struct sd_covars *cov, 
 	double x = a->st.cursor.x, level = a->ctx->opt.level;
 	int lvl = (int)lround(level * 100), cc = tplot_col(tp, x), n = 0;
 	struct sd_point pt;
-	struct sd_marginal mg;
+	struct sd_plus1 mg;
 	char here[256] = "";
 
 	curve_eval(p, cov, x, level, &pt);
-	curve_marginal(p, cov, x, level, &mg);
+	curve_plus1(p, cov, x, level, &mg);
 	for (int i = 0; i < k; i++)
 		if (tplot_col(tp, dose[i]) == cc)
 			n += snprintf(here + n, sizeof here - (size_t)n, "%s%c %s", n ? ", " : "; here: ",
 				      letter(i), muscle_name(mus[i]));
-	tui_putf(y, 1, COLS - 2, TR_MEAN, "at %.1f weekly sets: gain %+.1f%%   %d%% CI %.1f to %.1f   "
-		 "%d%% PI %.1f to %.1f", x, curve_pct(pt.y), lvl, curve_pct(pt.ci_lo),
-		 curve_pct(pt.ci_hi), lvl, curve_pct(pt.pi_lo), curve_pct(pt.pi_hi));
-	tui_putf(y + 1, 1, COLS - 2, TR_PLAIN, "one more set %+.2f%% (%.2f to %.2f); zone %s (plateau "
-		 "at %g)%s", mg.pct, mg.lo, mg.hi, zone_name(curve_zone(p, plateau, x)), plateau, here);
+	tui_putf(y, 1, COLS - 2, TR_MEAN, "at %.1f sets: gain %+.1f%%  %d%%: curve %.1f to %.1f  "
+		 "group %.1f to %.1f", x, curve_pct(pt.y), lvl, curve_pct(pt.ci_lo),
+		 curve_pct(pt.ci_hi), curve_pct(pt.group_lo), curve_pct(pt.group_hi));
+	tui_putf(y + 1, 1, COLS - 2, TR_PLAIN, "athlete %.1f to %.1f; +1 set %+.2f%% (%.2f to %.2f); "
+		 "%s%s", curve_pct(pt.ath_lo), curve_pct(pt.ath_hi), mg.pct, mg.lo, mg.hi,
+		 zone_name(curve_zone(p, plateau, x)), here);
 }
 
 /* The marked muscles' names flow along the lines under the axis; returns the lines used
@@ -210,9 +213,9 @@ static void draw(struct tui_app *a)
 	tui_context_text(a, ctx, sizeof ctx);
 	tui_putf(1, 1, COLS - 2, TR_HEAD, "%s", a->a.kind ? a->a.label : "the curve");
 	cw = tui_put(2, 1, COLS - 2, TR_PLAIN, ctx);
-	tui_putf(2, cw + 4, COLS - cw - 5, TR_DIM, "%s mean  %s %d%% CI  %s %d%% PI",
-		 a->unicode ? "\u2588" : "#", a->unicode ? "\u2592" : ":", lvl,
-		 a->unicode ? "\u2591" : ".", lvl);
+	tui_putf(2, cw + 4, COLS - cw - 5, TR_DIM, "%s mean  %s %d%% curve  %s group  %s athlete",
+		 a->unicode ? "\u2588" : "#", a->unicode ? "\u2593" : "=", lvl,
+		 a->unicode ? "\u2592" : ":", a->unicode ? "\u2591" : ".");
 	if (a->a.kind && !a->a.ready)
 		tui_putf(3, 1, COLS - 2, TR_ERR, "no marks: %s", a->a.err);
 	if (h < 4 || w < 20 || !(tp = tplot_new(w, h))) {

@@ -1,6 +1,8 @@
 /* The dose view: per muscle the weekly fractional sets as a gauge on a scale marking the
- * practical plateau and the end of the evidence, the predicted gain with its bands, what one
- * more weekly set buys, the zone, and the audit's warnings. All from audit_run. */
+ * practical plateau and the end of the evidence, the predicted gain with its bands (the average
+ * curve; one athlete when the window is wide; all three in the detail line), what one more
+ * weekly set buys, the zone, the audit's warnings and the profile's provenance line. All from
+ * audit_run. */
 #include <curses.h>
 #include <math.h>
 #include <stdio.h>
@@ -50,31 +52,34 @@ static void draw_row(struct tui_app *a, const struct sd_audit *au, int m, int y,
 	tui_putf(y, x + 7, 13, role, "%5.1f to %-5.1f", curve_pct(r->pt.ci_lo), curve_pct(r->pt.ci_hi));
 	x += 21;
 	if (wide) {
-		tui_putf(y, x, 13, role, "%5.1f to %-5.1f", curve_pct(r->pt.pi_lo),
-			 curve_pct(r->pt.pi_hi));
+		tui_putf(y, x, 13, role, "%5.1f to %-5.1f", curve_pct(r->pt.ath_lo),
+			 curve_pct(r->pt.ath_hi));
 		x += 14;
 	}
-	tui_putf(y, x, 6, role, "%+6.2f", r->marg.pct);
+	tui_putf(y, x, 6, role, "%+6.2f", r->plus1.pct);
 	snprintf(zone, sizeof zone, "%s", zone_name(r->zone));
 	if (!wide && r->zone == SD_ZONE_BEYOND)
 		snprintf(zone, sizeof zone, "beyond");
 	tui_put(y, x + 7, COLS - x - 7, sel ? TR_SEL : zr, zone);
 }
 
-static void draw_detail(const struct sd_audit *au, int m, int y)
+/* The selected muscle: its dose (when there is room) and its gain with the three bands. */
+static void draw_detail(const struct sd_audit *au, int m, int y, int dose_line)
 {
 	const struct sd_audit_row *r = &au->row[m];
 	int lvl = (int)lround(au->level * 100);
 
-	tui_putf(y, 1, COLS - 2, TR_PLAIN, "%s %.1f sets: %g direct, %g indirect; %d session%s, at "
+	if (dose_line)
+		tui_putf(y++, 1, COLS - 2, TR_PLAIN, "%s %.1f sets: %g direct, %g indirect; %d session%s, at "
 		 "most %.1f in one%s; %s", muscle_name(m), r->dose.fractional, r->dose.direct,
 		 r->dose.indirect, r->dose.sessions, r->dose.sessions == 1 ? "" : "s",
 		 r->dose.max_session, r->dose.easy > 0 ? "; easy sets not counted" : "",
 		 zone_name(r->zone));
-	tui_putf(y + 1, 1, COLS - 2, TR_PLAIN, "gain %+.1f%% (%d%% CI %.1f to %.1f; PI %.1f to %.1f); "
-		 "+1 set %+.2f%% (%.2f to %.2f)", curve_pct(r->pt.y), lvl, curve_pct(r->pt.ci_lo),
-		 curve_pct(r->pt.ci_hi), curve_pct(r->pt.pi_lo), curve_pct(r->pt.pi_hi), r->marg.pct,
-		 r->marg.lo, r->marg.hi);
+	tui_putf(y, 1, COLS - 2, TR_PLAIN, "gain %+.1f%%, %d%%: curve %.1f to %.1f, group %.1f to "
+		 "%.1f, athlete %.1f to %.1f; +1 set %+.2f%% (%.2f to %.2f)", curve_pct(r->pt.y), lvl,
+		 curve_pct(r->pt.ci_lo), curve_pct(r->pt.ci_hi), curve_pct(r->pt.group_lo),
+		 curve_pct(r->pt.group_hi), curve_pct(r->pt.ath_lo), curve_pct(r->pt.ath_hi),
+		 r->plus1.pct, r->plus1.lo, r->plus1.hi);
 }
 
 static void draw_warnings(struct tui_app *a, const struct sd_audit *au, int top, int rows)
@@ -94,9 +99,12 @@ static void draw(struct tui_app *a)
 	const struct tui_subject *s = &a->a;
 	const struct sd_audit *au = &s->audit;
 	const struct sd_profile *p = &a->ctx->profile;
-	int wide = COLS >= 110, gx = 19, gw, top = 4, rows = LINES - 8, lvl, lw;
+	/* A short window keeps every muscle on screen and the provenance line, and drops the
+	 * detail's dose line (the row above shows the dose). */
+	int tall = LINES >= 25, wide = COLS >= 110, gx = 19, gw, top = 4, rows = LINES - 8 - tall;
+	int lvl, lw;
 	double dmax = 0, smax;
-	char ctx[160], legend[96];
+	char ctx[200], legend[96], prov[300];
 
 	tui_context_text(a, ctx, sizeof ctx);
 	tui_putf(1, 1, COLS - 2, TR_HEAD, "%s", s->label);
@@ -120,10 +128,10 @@ static void draw(struct tui_app *a)
 	{
 		int x = gx + gw + 1;
 		tui_put(top - 1, x, 6, TR_HEAD, " gain%");
-		tui_putf(top - 1, x + 7, 13, TR_HEAD, "   %d%% CI", lvl);
+		tui_putf(top - 1, x + 7, 13, TR_HEAD, " %d%% curve", lvl);
 		x += 21;
 		if (wide) {
-			tui_putf(top - 1, x, 13, TR_HEAD, "   %d%% PI", lvl);
+			tui_putf(top - 1, x, 13, TR_HEAD, " %d%% athlete", lvl);
 			x += 14;
 		}
 		tui_put(top - 1, x, 6, TR_HEAD, "+1 set");
@@ -141,7 +149,9 @@ static void draw(struct tui_app *a)
 		if (au->nwarn && rows - SD_NMUSCLES >= 3)
 			draw_warnings(a, au, top + SD_NMUSCLES + 2, rows - SD_NMUSCLES - 2);
 	}
-	draw_detail(au, a->st.muscles.sel, LINES - 4);
+	draw_detail(au, a->st.muscles.sel, LINES - 4 - tall, tall);
+	profile_oneline(p, prov, sizeof prov);
+	tui_put(LINES - 3, 1, COLS - 2, TR_DIM, prov);
 	/* The bottom line: the scale's two marks on the right, the warnings on the left. */
 	snprintf(legend, sizeof legend, "%s plateau %g  %s end of evidence %g",
 		 a->unicode ? "\u250a" : ":", au->plateau, a->unicode ? "\u2503" : "|", p->dose_max);

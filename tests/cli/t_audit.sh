@@ -3,8 +3,14 @@ P=$ROOT/profiles
 
 run 0 "$SD" audit "$P/demo-fullbody3.ini"
 has out '^chest +9 +0 +9\.0 ' "chest: 9 direct sets -> 9.0 fractional"
-has out '^upper-back .* 10\.0 .* 26\.1 ' "upper-back at 10 sets: +26.1%"
+has out '^upper-back +6 +8 +10\.0 ' "upper-back: 6 direct, 8 indirect -> 10.0"
+has out '^upper-back +26\.1 ' "upper-back at 10 sets: +26.1%"
 has out 'plateau at 5 weekly fractional sets'
+has out '^  curve    the average curve \(confidence interval\)' "the legend names the three levels"
+has out '^  group    a new group or study'
+has out '^  athlete  one athlete'
+has out "^profile 'strength-default' \(calibrated\): calibrated from memory" "provenance line under the table"
+hasnt out 'prediction band|PI|new athlete' "no output calls a band 'prediction' or 'new athlete'"
 has out 'Not medical advice'
 
 # JSON: every per-muscle field the interface promises, valid JSON, stable numbers.
@@ -13,15 +19,23 @@ check "json parses and has all per-muscle fields" python3 - "$TMP/out" <<'PY'
 import json, sys
 d = json.load(open(sys.argv[1]))
 a = d["audits"][0]
-need = "muscle direct indirect fractional max_per_session sessions gain_pct ci_low ci_high pi_low pi_high marginal_pct zone".split()
+need = ("muscle direct indirect fractional max_per_session sessions gain_pct curve_low curve_high "
+        "group_low group_high athlete_low athlete_high plus1_pct plus1_low plus1_high zone "
+        "beyond_evidence").split()
 assert len(a["muscles"]) == 16
 for m in a["muscles"]:
     for k in need: assert k in m, k
 chest = [m for m in a["muscles"] if m["muscle"] == "chest"][0]
-assert chest["fractional"] == 9 and chest["zone"] == "plateau"
-assert chest["ci_low"] < chest["gain_pct"] < chest["ci_high"]
-assert chest["pi_low"] < chest["ci_low"] and chest["pi_high"] > chest["ci_high"]
+assert chest["fractional"] == 9 and chest["zone"] == "plateau" and chest["beyond_evidence"] == []
+assert chest["curve_low"] < chest["gain_pct"] < chest["curve_high"]
+assert chest["group_low"] < chest["curve_low"] and chest["group_high"] > chest["curve_high"]
+assert chest["athlete_low"] < chest["group_low"] and chest["athlete_high"] > chest["group_high"]
+assert chest["plus1_low"] < chest["plus1_pct"] < chest["plus1_high"]
 assert a["plateau"] == 5 and "caution" in d
+assert a["profile"] == {"name": "strength-default", "basis": "calibrated",
+    "summary": "calibrated from memory of the strength-volume literature, not fitted to study data"}
+assert a["evidence"]["weeks"] == {"low": 4, "high": 24, "value": 10, "used": 10, "beyond": False}
+assert a["evidence"]["dose"] == {"low": 0, "high": 30}
 PY
 
 # The CSV twin of the INI demo program gives the same doses.
@@ -45,12 +59,51 @@ run 0 "$SD" audit --max-rir 5 easy.ini
 hasnt out 'not counted as hard sets'
 has out '^triceps +2 +3 +3\.5 '
 
-# Trained, longer block: -0.05 and +0.02 on the lnRR scale.
-run 0 "$SD" curve --no-plot --status trained --weeks 12 --format csv
-has out '^10,22\.4,' "trained 12 weeks at 10 sets: 100(exp(0.25-0.2/11+0.02-0.05)-1) = 22.4%"
+# Trained, 8-week block at 10 sets: 0.25 - 0.2/11 - 0.02 + 0.02/11 - 0.125 + 0.075/11 = 0.0954545,
+# +10.016 %: inside the 8-12 % that trained trials of 8-12 weeks suggest (from memory).
+run 0 "$SD" curve --no-plot --status trained --weeks 8 --format csv
+has out '^10,10\.016,' "trained 8 weeks at 10 sets: +10.02%"
 run 0 "$SD" curve --no-plot --format csv
-has out '^0,5\.1,' "untrained 10 weeks at 0 sets: +5.1%"
-has out '^10,26\.1,' "untrained 10 weeks at 10 sets: +26.1%"
+has out '^0,5\.127,' "untrained 10 weeks at 0 sets: +5.1%"
+has out '^10,26\.089,' "untrained 10 weeks at 10 sets: 100 (e^0.231818 - 1) = +26.09%"
+has out '^sets,gain%,curve_lo,curve_hi,group_lo,group_hi,athlete_lo,athlete_hi,\+1set%,\+1set_lo,\+1set_hi,zone$'
+# +1 set is the discrete step: at 0 sets 100 (e^0.15 - e^0.05) = 11.056 points, at 1 set 3.938.
+has out '^0,5\.127,.*,11\.056[0-9],[0-9.]*,[0-9.]*,none$' "+1 set at 0 sets: 11.056"
+has out '^1,16\.183,.*,3\.938[0-9],' "+1 set at 1 set: 3.938"
+
+# Block length outside the evidence (4-24 weeks): flagged in the table and the JSON, and held
+# at 24 weeks: 0.25 - 0.2/11 + 0.14 (10/11) = 0.359091, +43.203 % at 10 sets (not +169 %).
+run 0 "$SD" --weeks 104 audit "$P/demo-fullbody3.ini"
+has out 'untrained, 104-week block \(beyond the evidence\)' "table header flags the block length"
+has out '^warning: block length \(weeks\) 104 is beyond the evidence \(4 to 24\): the curve uses 24'
+has out '^upper-back +43\.2 ' "held at 24 weeks: +43.2% at 10 sets"
+run 0 "$SD" --weeks 104 --format json audit "$P/demo-fullbody3.ini"
+check "json flags weeks beyond the evidence on every muscle and in the evidence object" python3 - "$TMP/out" <<'PY'
+import json, sys
+a = json.load(open(sys.argv[1]))["audits"][0]
+assert a["evidence"]["weeks"] == {"low": 4, "high": 24, "value": 104, "used": 24, "beyond": True}
+for m in a["muscles"]: assert "weeks" in m["beyond_evidence"], m
+ub = [m for m in a["muscles"] if m["muscle"] == "upper-back"][0]
+assert abs(ub["gain_pct"] - 43.203) < 1e-3 and ub["gain_pct"] < 169
+assert any("beyond the evidence" in w["text"] for w in a["warnings"])
+PY
+run 0 "$SD" --weeks 24 --format json audit "$P/demo-fullbody3.ini"
+check "at the range's edge (24 weeks): inside, not flagged, the same +43.2%" python3 - "$TMP/out" <<'PY'
+import json, sys
+a = json.load(open(sys.argv[1]))["audits"][0]
+assert a["evidence"]["weeks"]["beyond"] is False
+ub = [m for m in a["muscles"] if m["muscle"] == "upper-back"][0]
+assert abs(ub["gain_pct"] - 43.203) < 1e-3 and ub["beyond_evidence"] == []
+PY
+run 0 "$SD" --status trained --weeks 1 curve --no-plot --format csv
+has out '^0,0\.000,' "trained, 1 week, 0 sets: held at 4 weeks, +0.0% (was -8.6%)"
+run 0 "$SD" --weeks 52 curve --no-plot
+has out '^warning: block length \(weeks\) 52 is beyond the evidence'
+run 0 "$SD" --weeks 104 --format json curve --no-plot
+check "curve json: weeks beyond the evidence on every point" python3 -c '
+import json,sys; d=json.load(open(sys.argv[1]))
+assert d["evidence"]["weeks"]["beyond"] and all("weeks" in p["beyond_evidence"] for p in d["points"])
+assert d["profile"]["basis"] == "calibrated"' "$TMP/out"
 run 0 "$SD" curve --program "$P/demo-minimal2.ini"
 has out 'marks \(Tidewater'
 has out 'weekly fractional sets'
@@ -67,6 +120,10 @@ run 0 "$SD" profile check
 has out '^ok: '
 run 0 "$SD" profile show
 has out 'Calibrated default, not fitted'
+has out '^basis       calibrated: calibrated from memory'
+has out '^weeks       4 to 24 \(evidence range'
+has out '^  one athlete          \+ between-athlete variance 0\.0064 \(SD 0\.080\)'
+has out 'source: Between-athlete SD 0\.08 lnRR .*Hubal et al\. 2005'
 run 0 "$SD" help audit
 has out 'audit \[--summary\]'
 run 0 "$SD" --version
@@ -111,15 +168,32 @@ has err "--format wants table, csv or json, not 'yaml'"
 run 2 "$SD" frobnicate
 has err "unknown command 'frobnicate'"
 run 2 "$SD" --weeks 0 curve
-sed 's/^dose .*/dose = -0.000144, 0.00001, 0, 0/' "$P/strength.ini" >notpd.ini
+sed 's/^dose  .*/dose = -0.000144, 0.00001, 0, 0, 0, 0/' "$P/strength.ini" >notpd.ini
 run 1 "$SD" --profile notpd.ini audit "$P/demo-minimal2.ini"
 has err "profile 'notpd.ini': covariance matrix is not positive definite"
 grep -v '^beta' "$P/strength.ini" >nobeta.ini
 run 1 "$SD" profile check nobeta.ini
-has err "missing \[terms\] names or beta"
+has err "missing 'beta' in \[terms\]"
 sed 's/^beta .*/beta = 0.25, -0.20, 0.01/' "$P/strength.ini" >short.ini
 run 1 "$SD" profile check short.ini
-has err "beta needs 4 numbers, one per term \(missing coefficient\?\)"
+has err "line [0-9]*: 'beta' needs 6 numbers, one per term \(missing coefficient\?\), got 3"
+# Bounded values, checked with their line; duplicates name both lines (no silent override).
+sed 's/^dose_max .*/dose_max = 3088022415/' "$P/strength.ini" >huge.ini
+run 1 "$SD" --profile huge.ini audit "$P/demo-minimal2.ini"
+has err "^setdose: cannot read profile 'huge.ini' line 23: 'dose_max' must be above 0 and at most 200 weekly fractional sets, not 3088022415$"
+lines err 1
+sed 's/^df .*/df = 2.5/' "$P/strength.ini" >df.ini
+run 1 "$SD" profile check df.ini
+has err "line 27: 'df' must be a whole number from 0 to 1000000, not 2\.5"
+sed 's/^tau2 .*/tau2 = 1e308/' "$P/strength.ini" >tau.ini
+run 1 "$SD" profile check tau.ini
+has err "'tau2' must be from 0 to 1 lnRR\^2, not 1e\+308"
+{ cat "$P/strength.ini"; printf '[profile]\nform = linear\n'; } >twice.ini
+run 1 "$SD" profile check twice.ini
+has err "section \[profile\] appears twice \(lines 17 and [0-9]*\)"
+sed 's/^form .*/form = reciprocal\nform = linear/' "$P/strength.ini" >twokeys.ini
+run 1 "$SD" profile check twokeys.ini
+has err "line 22: key 'form' appears twice in \[profile\] \(lines 21 and 22\)"
 mkdir adir
 run 1 "$SD" audit adir
 has err "^setdose: cannot read program 'adir': Is a directory"
@@ -139,3 +213,9 @@ has out '^bom.csv,chest,3,0,3\.0,'
 printf '\357\273\277[program]\nname = bom\n[a]\nbench press = 3\n' >bom.ini
 run 0 "$SD" audit --format csv bom.ini
 has out '^bom.ini,chest,3,0,3\.0,'
+
+# The documentation names the three levels as the outputs do, and no longer calls the group
+# band a prediction for one athlete.
+check "README names the three levels" sh -c "grep -q '\*\*curve\*\* — the average curve' '$ROOT/README.md' && grep -q '\*\*group\*\* — a new group or study' '$ROOT/README.md' && grep -q '\*\*athlete\*\* — one athlete' '$ROOT/README.md'"
+check "the man page names the three levels" sh -c "grep -q '^.SH THREE LEVELS OF UNCERTAINTY' '$ROOT/man/setdose.1' && grep -q '^a new group or study: adds the between' '$ROOT/man/setdose.1' && grep -q '^one athlete: adds the profile' '$ROOT/man/setdose.1'"
+check "no document calls a band a prediction band or 'a new athlete'" sh -c "! grep -Eqi 'prediction band|prediction interval \(a new athlete\)|\(one athlete\)\"' '$ROOT/README.md' '$ROOT/man/setdose.1' '$ROOT/DEVELOPERS.md'"

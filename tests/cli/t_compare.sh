@@ -1,11 +1,12 @@
-# compare: programs side by side, the difference per muscle with its interval, P(> SWC) and
-# a verdict; totals; per-session warnings; stored templates by name; bad input.
+# compare: programs side by side, the difference per muscle with its interval and a decision
+# against the SWC; totals; per-session warnings; stored templates by name; bad input.
 P=$ROOT/profiles
 
 # Worked by hand with the bundled profile (y = 0.25 - 0.20/(x+1) + ..., SE(b_dose) 0.020):
 # chest 3 -> 8 weekly sets: d = 0.2 (1/4 - 1/9) = 1/36, se = 1/360,
-# 100(e^d - 1) = 2.8167%, 95% CI 2.2585% to 3.3780%, P(d > ln 1.03) = 1 - Phi(0.6412) = 0.2607
-# (normal table, Abramowitz & Stegun 1964, Table 26.1); within the SWC, interval excludes 0.
+# 100(e^d - 1) = 2.8167%, 95% CI 2.2585% to 3.3780%; the 90% decision interval
+# d -+ 1.644854/360 = [0.0232088, 0.0323468], 2.3480% to 3.2876%: above 0, reaching inside the
+# SWC ln 1.03: some-gain (normal quantiles: Abramowitz & Stegun 1964, Table 26.1).
 printf '[program]\nname = three\n[mon]\nbench press = 3\n' >a.ini
 printf '[program]\nname = eight\n[mon]\nbench press = 4\n[thu]\nbench press = 4\n' >b.ini
 printf '[program]\nname = one day\n[mon]\nbench press = 12\nlateral raise = 3\n' >c.ini
@@ -14,16 +15,18 @@ run 0 "$SD" compare a.ini b.ini
 has out '^ +A +three \(a\.ini\)'
 has out '^chest +3\.0 +22\.1 +8\.0 +25\.6' "chest: 3 and 8 sets, 100(e^0.2 - 1) = 22.1%, 100(e^(0.25-0.2/9) - 1) = 25.6%"
 has out '^B vs A: difference'
-has out '^chest +2\.82 +2\.26 +3\.38 +0\.261 +0\.000 +real but trivial gain' "chest delta by hand"
-has out '^triceps +4\.08 .* worthwhile gain' "triceps 1.5 -> 4: d = 0.04, beyond the SWC"
-has out '^calves +0\.00 .* no clear difference'
-has out 'heterogeneity cancels'
+has out '^chest +2\.82 +2\.26 +3\.38 +2\.35 +3\.29 +some-gain$' "chest delta by hand"
+has out '^triceps +4\.08 .* clear-gain$' "triceps 1.5 -> 4: d = 0.04, 90% interval above the SWC"
+has out '^calves +0\.00 .* equivalent$'
+has out 'profile has no random slopes, so the intervals assume every athlete shares'
+hasnt out 'P\(>SWC\)|verdict' "no probability-beyond-SWC column"
+has out "^profile 'strength-default' \(calibrated\)"
 has out '^hard sets a week +3 +8'
 has out '^sessions +1 +2'
 has out 'Not medical advice'
 
 run 0 "$SD" compare --format csv a.ini b.ini
-has out '^A,B,chest,3\.00,8\.00,2\.8167,2\.2585,3\.3780,0\.2607,0\.0000,trivial-gain$' "csv row by hand"
+has out '^A,B,chest,3\.00,8\.00,2\.8167,2\.2585,3\.3780,2\.3480,3\.2876,some-gain$' "csv row by hand"
 has out '^program,hard_sets,sessions,sets_per_session,under_plateau,past_plateau,beyond_evidence,over_session_cap$'
 has out '^B,8,2,4\.00,'
 
@@ -35,11 +38,13 @@ assert [p["key"] for p in d["programs"]] == ["A", "B", "C"]
 assert [(c["first"], c["second"]) for c in d["comparisons"]] == [("A", "B"), ("A", "C"), ("B", "C")]
 ch = [m for m in d["comparisons"][0]["muscles"] if m["muscle"] == "chest"][0]
 assert abs(ch["delta_lnrr"] - 1 / 36) < 1e-6 and abs(ch["se_lnrr"] - 1 / 360) < 1e-6
-assert abs(ch["p_above_swc"] - 0.2607) < 5e-4 and ch["verdict"] == "trivial-gain"
+assert abs(ch["dec_low"] - 2.3480) < 1e-4 and ch["decision"] == "some-gain"
+assert "p_above_swc" not in ch and d["decision_level"] == 0.9
+assert d["profile"]["name"] == "strength-default" and d["profile"]["basis"] == "calibrated"
 c = d["programs"][2]
 assert c["over_session_cap"] == 1 and c["warnings"][0]["muscle"] == "chest"
 assert c["warnings"][0]["day"] == "mon"
-assert "heterogeneity cancels" in d["intervals"] and "caution" in d
+assert "no random slopes" in d["intervals"] and "caution" in d
 PY
 
 # Each against the first only; session-cap warnings follow --session-cap.
@@ -60,7 +65,23 @@ hasnt out 'different block lengths'
 has out '12-week block'
 
 run 0 "$SD" help compare
-has out 'heterogeneity cancels'
+has out 'With a profile without random slopes \(the bundled one\)'
+has out 'the interval assumes every athlete shares the curve.s slope'
+
+# A profile with random slopes: one athlete's own slope deviation adds (f_B - f_A)^2 tau2_slope.
+# By hand, chest 3 -> 8: (5/36)^2 (0.0004 + 0.0009) = 0.0000250772, se 0.00500771 (1.8 times
+# 1/360); 90% interval 1/36 -+ 1.644854 (0.00500771) = [0.0195408, 0.0360148]: some-gain.
+sed 's/^slopes .*/slopes     = yes\ntau2_slope = 0.0009\ncov_slope  = -0.0012/' "$P/strength.ini" >slopes.ini
+run 0 "$SD" --profile slopes.ini --format json compare a.ini b.ini
+check "slopes profile: se of a same-athlete difference by hand" python3 - "$TMP/out" <<'PY'
+import json, sys
+d = json.load(open(sys.argv[1]))
+ch = [m for m in d["comparisons"][0]["muscles"] if m["muscle"] == "chest"][0]
+assert abs(ch["se_lnrr"] - 0.00500771) < 1e-6, ch   # JSON rounds to 6 decimals
+assert ch["decision"] == "some-gain" and "random-slope variance" in d["intervals"]
+PY
+run 0 "$SD" --profile slopes.ini compare a.ini b.ini
+has out "adds the profile's random-slope variance"
 
 # Bad input: one line, status 2 for usage and 1 for unreadable programs. Comparing files never
 # creates a database; a name that is no file is looked up only in an existing one.

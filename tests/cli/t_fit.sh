@@ -95,8 +95,22 @@ run 0 "$SD" --profile fitted.ini profile show
 has out "sim-fit"
 has out "^dose +-0\.2668"
 has out "random slopes"
+has out "^basis       fitted: fitted by setdose fit to 'sim_reciprocal_effects.csv' \(118 effects, 40 studies\)"
+has out "^weeks       6 to 16 \(evidence range" "each moderator's range is the data's (weeks 6-16 in make_sim.R)"
+has out "^trained     0 to 1 "
+has out "source: Copied from profile 'strength-default', not estimated: study-level effect sizes cannot estimate"
+run 0 "$SD" fit $MODEL --write plain.ini "$SIM"
+has out "^not estimable from study-level effects: the between-athlete variance \(0\.0064 copied from the active profile"
+check "the written profile marks its basis and copied athlete variance" sh -c \
+	"grep -q '^basis *= fitted' plain.ini && grep -q '^athlete *= 0.0064' plain.ini && grep -q '^weeks *= 6, 16' plain.ini"
 run 0 "$SD" --profile fitted.ini audit "$ROOT/profiles/demo-fullbody3.ini"
 has out "profile sim-fit"
+has out "^profile 'sim-fit' \(fitted\): fitted by setdose fit to 'sim_reciprocal_effects.csv'" "the fitted profile's provenance line under the table"
+run 0 "$SD" --profile fitted.ini --weeks 30 --format json audit "$ROOT/profiles/demo-fullbody3.ini"
+check "a fitted profile flags block lengths outside its data (6-16 weeks)" python3 -c '
+import json,sys; a=json.load(open(sys.argv[1]))["audits"][0]
+assert a["evidence"]["weeks"] == {"low": 6, "high": 16, "value": 30, "used": 16, "beyond": True}
+assert a["profile"]["basis"] == "fitted"' "$TMP/out"
 run 0 "$SD" --swc 5 fit $MODEL --write swc5.ini "$SIM"
 check "--swc sets the written profile's SWC" grep -q '^swc *= 0.04879016416' swc5.ini
 

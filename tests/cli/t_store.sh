@@ -155,24 +155,28 @@ has out '^140\.00 kg ' "one rep is the load itself"
 run 0 "$SD" e1rm 100 15
 has err 'warning: 15 reps'
 run 2 "$SD" e1rm 100 21
-has err '21 reps is too many'
+has err "^setdose: REPS wants a whole number from 1 to 20, not '21'$" "the message states the real limit, 20"
 lines err 1
+run 2 "$SD" e1rm 100 1001
+has err "REPS wants a whole number from 1 to 20, not '1001'"
 run 2 "$SD" e1rm 100 5 --formula nosuch
 lines err 1
 
 # ---------------------------------------------------------------- response, worked example
 # Profile tests/data/linear-profile.ini: y = 0.02 + 0.01 x, Var(b0) = 1e-4, Var(b1) = 1e-6,
-# tau2 + sigma2 = 0.0025. Template bench-only.ini: chest (bench press's only prime mover) gets
-# 8 weekly sets, so yhat = 0.10 and sp^2 = 1e-4 + 64e-6 + 0.0025 = 0.002664 in both blocks.
-# Test error 0.03 per test: s^2 = 0.002664 + 2 (0.03)^2 = 0.004464.
-#   block A: 1RM 100 -> 110: obs = ln 1.1 = 0.0953102, z = (0.0953102 - 0.10) / 0.0668132
-#            = -0.070193, percentile 47.20
-#   block B: 1RM 110 -> 118: obs = ln(118/110) = 0.0702036, z = -0.445968, percentile 32.78
-#   prior SD 0.05: precision 400; data precision 2 / 0.004464 = 448.029
-#   personal mean = (sum d / s^2) / (400 + 448.029) = -7.725403 / 848.029 = -0.0091099,
-#   SD = 1 / sqrt(848.029) = 0.034340
-# The checks recompute all of it with awk below (a second method: the normal CDF there is the
-# Abramowitz & Stegun 1964 formula 26.2.17, not GSL's).
+# tau2 + sigma2 = 0.0025 (the prior block variance B), between-athlete variance 0.0024 (the
+# prior A). Template bench-only.ini: chest (bench press's only prime mover) gets 8 weekly sets,
+# so yhat = 0.10 in both blocks, and the curve's error z'Vz = 1e-4 + 64e-6 = 0.000164 is shared
+# by both observations. Every test is a single (same rep count): v = 2 (0.03)^2 = 0.0018.
+#   one observation: s^2 = 0.000164 + A + B + v = 0.006864
+#   block A: 1RM 100 -> 110: obs = ln 1.1 = 0.0953102, z = -0.0566067, percentile 47.743
+#   block B: 1RM 110 -> 118: obs = ln(118/110) = 0.0702043, z = -0.359638, percentile 35.956
+#   personal: Sigma0 = [[0.004464, 0.000164], [0.000164, 0.004464]] (different blocks), so
+#   Sigma0^-1 1 = (w, w) with w = 1 / 0.004628; s = 2w, t = w (d1 + d2),
+#   mean = A t / (1 + A s) = -0.0087787, SD = sqrt(A / (1 + A s)) = 0.034324
+# The roster has one athlete with observations, far below the 10 the estimates need, so the
+# stated priors are used and said so. The checks recompute all of it with awk below (a second
+# method: the normal CDF there is the Abramowitz & Stegun 1964 formula 26.2.17, not GSL's).
 LP=$ROOT/tests/data/linear-profile.ini
 run 0 "$SD" athlete add "Noor Vance" --status trained
 run 0 "$SD" program add "$ROOT/tests/data/bench-only.ini"
@@ -189,7 +193,8 @@ run 0 "$SD" --profile "$LP" response "Noor Vance" --format csv
 head -3 "$TMP/out" >"$TMP/obs.csv"
 sed -n '5,6p' "$TMP/out" >"$TMP/pers.csv"
 check "response CSV: two observations and the personal table" test "$(wc -l <"$TMP/obs.csv")" -eq 3
-# block,lift,pre,post,e1rm_pre,e1rm_post,change%,lnRR,dose,predicted%,pi_low%,pi_high%,percentile
+# block,lift,pre,post,e1rm_pre,e1rm_post,reps_pre,reps_post,change%,lnRR,dose,weeks,predicted%,
+# obs_lo%,obs_hi%,percentile,beyond
 check "response: observations, predictions and percentiles agree with the hand computation" awk -F, '
 function Phi(z,  t, p, s) {   # Abramowitz & Stegun 26.2.17, |error| < 7.5e-8
 	s = z < 0; if (s) z = -z
@@ -200,45 +205,52 @@ function Phi(z,  t, p, s) {   # Abramowitz & Stegun 26.2.17, |error| < 7.5e-8
 function near(a, b, tol) { if (a - b > tol || b - a > tol) { print "got " a ", want " b > "/dev/stderr"; bad = 1 } }
 NR == 1 { next }
 {
-	yhat = 0.02 + 0.01 * 8; s2 = 1e-4 + 64 * 1e-6 + 0.0025 + 2 * 0.03 ^ 2
+	yhat = 0.02 + 0.01 * 8; A = 0.0024; B = 0.0025; v = 2 * 0.03 ^ 2; C = 1e-4 + 64 * 1e-6
+	s2 = C + A + B + v
 	obs = log($6 / $5); z = (obs - yhat) / sqrt(s2)
-	near($8, obs, 1e-6); near($9, 8, 1e-9)
-	near($10, 100 * (exp(yhat) - 1), 1e-3)
-	near($11, 100 * (exp(yhat - 1.959964 * sqrt(s2)) - 1), 1e-3)
-	near($12, 100 * (exp(yhat + 1.959964 * sqrt(s2)) - 1), 1e-3)
-	near($13, 100 * Phi(z), 1e-3)
-	sw += 1 / s2; swd += (obs - yhat) / s2
+	near($7, 1, 0); near($8, 1, 0)
+	near($10, obs, 1e-6); near($11, 8, 1e-9); near($12, 8, 0)
+	near($13, 100 * (exp(yhat) - 1), 1e-3)
+	near($14, 100 * (exp(yhat - 1.959964 * sqrt(s2)) - 1), 1e-3)
+	near($15, 100 * (exp(yhat + 1.959964 * sqrt(s2)) - 1), 1e-3)
+	near($16, 100 * Phi(z), 1e-3)
+	sd += obs - yhat
 }
 END {
 	near(NR, 3, 0)
-	near(swd / (400 + sw), -0.0091099, 1e-6)     # the hand value in the comment above
-	printf "%.8f %.8f\n", swd / (400 + sw), sqrt(1 / (400 + sw)) > "'"$TMP/want"'"
+	w = 1 / (C + B + v + C); s = 2 * w; t = w * sd
+	near(A * t / (1 + A * s), -0.0087787, 1e-6)   # the hand value in the comment above
+	printf "%.8f %.8f\n", A * t / (1 + A * s), sqrt(A / (1 + A * s)) > "'"$TMP/want"'"
 	exit bad
 }' "$TMP/obs.csv"
-has obs.csv '^2,bench press,2024-01-05,2024-03-04,100\.000,110\.000,' "block A pairs the tests nearest its start and end"
-has obs.csv ',47\.20[0-9]$' "block A percentile 47.20 (hand)"
-has obs.csv ',32\.78[0-9]$' "block B percentile 32.78 (hand)"
-# observations,blocks,lnrr,sd,low,high,...
-check "personal response: shrunken mean and SD agree with the hand computation" awk -F, -v want="$(cat "$TMP/want")" '
+has obs.csv '^2,bench press,2024-01-05,2024-03-04,100\.000,110\.000,1,1,' "block A pairs the tests nearest its start and end"
+has obs.csv ',47\.74[0-9],$' "block A percentile 47.743 (hand)"
+has obs.csv ',35\.95[0-9],$' "block B percentile 35.956 (hand)"
+# observations,blocks,lnrr,sd,low,high,...,variances,var_athlete,var_block,test_error,level
+check "personal response: the posterior mean and SD agree with the hand computation" awk -F, -v want="$(cat "$TMP/want")" '
 NR == 2 { split(want, w, " "); d1 = $3 - w[1]; d2 = $4 - w[2]
-	exit !($1 == 2 && $2 == 2 && d1 * d1 < 1e-12 && d2 * d2 < 1e-12 && $3 + 0.0091099 < 1e-6 && $3 + 0.0091099 > -1e-6) }' "$TMP/pers.csv"
+	exit !($1 == 2 && $2 == 2 && d1 * d1 < 1e-12 && d2 * d2 < 1e-12 && $13 == "priors" && $14 == 0.0024) }' "$TMP/pers.csv"
 # Both settings are stated and settable: a wider prior shrinks less, a larger test error more.
 run 0 "$SD" --profile "$LP" response "Noor Vance" --prior-sd 0.2 --test-error 0.05 --format csv
 sed -n 6p "$TMP/out" >"$TMP/pers2.csv"
 check "--prior-sd 0.2 --test-error 0.05 give the hand values" awk -F, '
-{ s2 = 0.002664 + 2 * 0.05 ^ 2; d = log(1.1) - 0.1 + log(118 / 110) - 0.1
-  m = (d / s2) / (1 / 0.04 + 2 / s2); sd = sqrt(1 / (1 / 0.04 + 2 / s2))
-  exit !(($3 - m) ^ 2 < 1e-12 && ($4 - sd) ^ 2 < 1e-12 && $13 == 0.2 && $14 == 0.05) }' "$TMP/pers2.csv"
+{ A = 0.04; C = 0.000164; w = 1 / (C + 0.0025 + 2 * 0.05 ^ 2 + C)
+  d = log(1.1) - 0.1 + log(118 / 110) - 0.1; s = 2 * w; t = w * d
+  m = A * t / (1 + A * s); sd = sqrt(A / (1 + A * s))
+  exit !(($3 - m) ^ 2 < 1e-12 && ($4 - sd) ^ 2 < 1e-12 && $14 == 0.04 && $16 == 0.05) }' "$TMP/pers2.csv"
 run 0 "$SD" --profile "$LP" response "Noor Vance"
-has out 'test error 0\.030 per 1RM test .*prior SD of personal deviations 0\.050' "table states test error and prior"
-has out '^personal response: -0\.9% \(lnRR -0\.0091\)' "personal response -0.91% in the table"
+has out 'test error 0\.030 per 1RM test .*different rep counts' "table states the test error and its rule"
+has out '^variances: the stated priors \(the roster is too small to estimate them: 1 athletes with observations \(need 10\)' "which variances, and why"
+has out "between athletes 0\.00240 \(SD 0\.049, the profile's one-athlete variance\)"
+has out '^personal response: -0\.9% \(lnRR -0\.0088\)' "personal response -0.87% in the table"
 has out 'from 2 observations in 2 completed blocks'
 run 0 "$SD" --profile "$LP" response "Noor Vance" --block 3 --format json
 check "response JSON: one row for block 3, personal from both blocks" python3 -c "
 import json; d=json.load(open('$TMP/out'))
 assert [o['block'] for o in d['observations']]==[3], d
-assert d['personal']['observations']==2 and abs(d['personal']['lnrr']+0.0091099)<1e-6
-assert d['prior_sd']==0.05 and d['test_error']==0.03"
+assert d['personal']['observations']==2 and abs(d['personal']['lnrr']+0.0087787)<1e-6
+assert d['variances']['source']=='priors' and d['variances']['athlete']==0.0024
+assert d['test_error']==0.03 and d['profile']['name']=='test-linear'"
 run 0 "$SD" response "Rhea Tamsin"
 has out 'no observations yet: this is the prior'
 run 1 "$SD" response "Noor Vance" --block 1

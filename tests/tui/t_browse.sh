@@ -13,14 +13,16 @@ RESP=$(awk -F, 'p { printf "%+.1f%% against the curve, 95%% interval %+.1f%% to 
 # (fields counted from the end: template names hold commas)
 BLOCK=$("$SD" --db "$DB" block list "$A" --format csv | awk -F, '$NF == "open" { print $1 }' | tail -1)
 "$SD" --db "$DB" block show "$BLOCK" --format csv >block.csv 2>&1
-CHEST=$(awk -F, '$(NF-12) == "chest" { printf "chest {1,}%s .* %+.1f {1,}%s to %s {1,}%+.2f %s", $(NF-9), $(NF-6), $(NF-5), $(NF-4), $(NF-1), $NF }' block.csv | sed 's/+/\\+/g')
+CHEST=$(awk -F, '$(NF-17) == "chest" { printf "chest {1,}%.1f .* %+.1f {1,}%.1f to %.1f {1,}%+.2f %s", $(NF-14), $(NF-11), $(NF-10), $(NF-9), $(NF-4), $(NF-1) }' block.csv | sed 's/+/\\+/g')
+DETAIL=$(awk -F, '$(NF-17) == "chest" { printf "gain %+.1f%%, 95%%: curve %.1f to %.1f, group %.1f to %.1f, athlete %.1f to %.1f", $(NF-11), $(NF-10), $(NF-9), $(NF-8), $(NF-7), $(NF-6), $(NF-5) }' block.csv | sed 's/+/\\+/g')
+PLATEAU=$("$SD" --db "$DB" block show "$BLOCK" | sed -n 's/.*plateau at \([0-9.]*\) weekly.*/\1/p')
 # readout at DOSE for STATUS and WEEKS, as `setdose curve` tabulates it
 readout() {
 	"$SD" --db "$DB" --status "$2" --weeks "$3" curve --step 0.5 --no-plot --format csv |
-		awk -F, -v x="$1" '$1 == x { printf "at %s weekly sets: gain %+.1f%%   95%% CI %s to %s   95%% PI %s to %s", x, $2, $3, $4, $5, $6 }' |
+		awk -F, -v x="$1" '$1 == x { printf "at %s sets: gain %+.1f%%  95%%: curve %.1f to %.1f  group %.1f to %.1f", x, $2, $3, $4, $5, $6 }' |
 		sed 's/+/\\+/g'
 }
-check "expected figures computed by the commands" [ -n "$RESP" ] && [ -n "$BLOCK" ] && [ -n "$CHEST" ]
+check "expected figures computed by the commands" [ -n "$RESP" ] && [ -n "$BLOCK" ] && [ -n "$CHEST" ] && [ -n "$DETAIL" ] && [ -n "$PLATEAU" ]
 
 # setdose with no command on a terminal opens the interface.
 start 80 24 -- --db "$DB"
@@ -45,16 +47,18 @@ on_screen "$RESP" "personal response equals 'setdose response' (estimate, interv
 keys Enter
 wait_for "block $BLOCK 'Tidewater minimal, two days'" "Enter opens the current block's dose view"
 on_screen "trained, 12-week block" "the dose view states the athlete's status and block length"
-on_screen "plateau 5 .* end of evidence 30" "the scale names the plateau and the end of the evidence"
+on_screen "plateau $PLATEAU .* end of evidence 30" "the scale names the plateau and the end of the evidence"
 on_screen "$CHEST" "chest row equals 'setdose block show' (sets, gain, CI, +1 set, zone)"
 on_screen "calves +0\.0 .* none" "a muscle without sets is shown as such"
-on_screen "gain \+20\.5% \(95% CI 16\.7 to 24\.4; PI 6\.9 to 35\.9\)" "the selected muscle's detail shows both bands"
+on_screen "profile 'strength-default' \(calibrated\): calibrated from memory" "the dose view shows the profile's provenance line"
+on_screen "$DETAIL" "the selected muscle's detail names the three levels, as 'setdose block show'"
 on_screen "███" "the gauges are drawn with block characters"
 
 # The curve, its cursor starting at the selected muscle's dose (chest, 5.0 sets).
 keys k
 wait_for "$(readout 5.0 trained 12)" "k opens the curve; the cursor reads the curve at 5.0 sets as 'setdose curve' does"
-on_screen "█ mean +▒ 95% CI +░ 95% PI" "the curve's legend names the bands"
+on_screen "█ mean +▓ 95% curve +▒ group +░ athlete" "the curve's legend names the three bands"
+on_screen "^ *athlete .* to .*; \+1 set " "the readout gives the one-athlete band and +1 set"
 on_screen "a chest 5\.0" "the block's muscles are marked and listed"
 on_screen "here: a chest" "the cursor names the muscles at its dose"
 on_screen "sets: +0 .*10 .*20 .*30" "the dose axis is labelled"
@@ -102,9 +106,9 @@ wait_for "2026-07-01 +bench press +100\.0 kg x 5 +1RM 112\.5 kg" "the new test h
 resize 120 40
 wait_for "2026-07-01 +bench press +100\.0 kg x 5 +1RM 112\.5 kg +brzycki" "at 120x40 the page adds the formula column"
 keys Enter
-wait_for "95% PI" "at 120 columns the dose view adds the prediction band column"
+wait_for "95% athlete" "at 120 columns the dose view adds the one-athlete band column"
 resize 60 20
-wait_for "^ muscle +sets .* gain% +95% CI +\+1 set" "at 60x20 the dose view is drawn without the PI column"
+wait_for "^ muscle +sets .* gain% +95% curve +\+1 set" "at 60x20 the dose view is drawn without the athlete column"
 resize 30 10
 wait_for "terminal too small" "a 30x10 window says it is too small"
 resize 80 24

@@ -42,9 +42,10 @@ keys Enter
 wait_for "blocks \(current first\)" "the athlete's page in ASCII"
 on_screen "^-- personal response -+$" "the rule is drawn with '-'"
 keys Enter
-wait_for "chest +5\.0 ===:\.+\|" "the dose gauge is drawn with '=' and '.', the plateau ':' and the end of the evidence '|'"
+wait_for "chest +5\.0 =+\.+\|" "the dose gauge is drawn with '=' and '.' and the end of the evidence '|'"
+on_screen "side-delts +1\.0 [-=]*\.*:\.+\|" "the plateau past a muscle's dose is marked ':'"
 keys k
-wait_for "# mean +: 95% CI +\. 95% PI" "the curve's legend uses ASCII glyphs"
+wait_for "# mean += 95% curve +: group +\. athlete" "the curve's legend uses ASCII glyphs"
 on_screen "#" "the curve's mean is drawn with '#'"
 settle
 check "no byte outside printable ASCII on any of these screens" sh -c "! LC_ALL=C grep -q '[^ -~]' '$TMP/screen'"

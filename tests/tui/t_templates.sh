@@ -9,18 +9,13 @@ MIN="Tidewater minimal, two days"
 
 # Expected figures from the commands (fields counted from the end: labels may hold commas).
 "$SD" audit --format csv "$ROOT/profiles/demo-minimal2.ini" >audit.csv 2>&1
-CHEST=$(awk -F, '$(NF-12) == "chest" { printf "chest {1,}%s .* %+.1f {1,}%s to %s {1,}%+.2f %s", $(NF-9), $(NF-6), $(NF-5), $(NF-4), $(NF-1), $NF }' audit.csv | sed 's/+/\\+/g')
+CHEST=$(awk -F, '$(NF-17) == "chest" { printf "chest {1,}%.1f .* %+.1f {1,}%.1f to %.1f {1,}%+.2f %s", $(NF-14), $(NF-11), $(NF-10), $(NF-9), $(NF-4), $(NF-1) }' audit.csv | sed 's/+/\\+/g')
 "$SD" --db "$DB" compare --format csv "$FB" "$MIN" >compare.csv 2>&1
-PAIR=$(awk -F, '$1 == "A" && $2 == "B" && $3 == "chest" { printf "chest {1,}%.1f {1,}%.1f .* %+.1f {1,}%.1f to %.1f {1,}%.2f {1,}%.2f", $4, $5, $6, $7, $8, $9, $10 }' compare.csv | sed 's/+/\\+/g')
-VERDICT=$(awk -F, '$1 == "A" && $2 == "B" && $3 == "chest" { print $NF }' compare.csv)
-case $VERDICT in
-worthwhile-gain) VTEXT="worthwhile gain" ;; unsure-gain) VTEXT="gain, unsure" ;;
-trivial-gain) VTEXT="real but trivial gain" ;; no-clear-difference) VTEXT="no clear difference" ;;
-trivial-loss) VTEXT="real but trivial loss" ;; unsure-loss) VTEXT="loss, unsure" ;;
-worthwhile-loss) VTEXT="worthwhile loss" ;; *) VTEXT="?" ;;
-esac
+PAIR=$(awk -F, '$1 == "A" && $2 == "B" && $3 == "chest" { printf "chest {1,}%.1f {1,}%.1f .* %+.1f {1,}%.1f to %.1f {1,}%s", $4, $5, $6, $7, $8, $11 }' compare.csv | sed 's/+/\\+/g')
+DECISION=$(awk -F, '$1 == "A" && $2 == "B" && $3 == "chest" { print $NF }' compare.csv)
+PLATEAU=$("$SD" --weeks 12 returns | sed -n 's/^Practical plateau: \([0-9.]*\) .*/\1/p')
 READ5=$("$SD" --weeks 12 curve --step 0.5 --no-plot --format csv |
-	awk -F, '$1 == "5" { printf "at 5.0 weekly sets: gain %+.1f%%   95%% CI %s to %s   95%% PI %s to %s", $2, $3, $4, $5, $6 }' |
+	awk -F, -v x="$PLATEAU" '$1 == x { printf "at %.1f sets: gain %+.1f%%  95%%: curve %.1f to %.1f  group %.1f to %.1f", x, $2, $3, $4, $5, $6 }' |
 	sed 's/+/\\+/g')
 check "expected figures computed by the commands" [ -n "$CHEST" ] && [ -n "$PAIR" ] && [ -n "$READ5" ]
 
@@ -66,8 +61,8 @@ wait_for "A: '$FB'" "c opens the comparison"
 on_screen "B: '$MIN'" "B is the selected template"
 on_screen "48 hard sets a week" "A's hard sets"
 on_screen "23 hard sets a week" "B's hard sets"
-on_screen "$PAIR" "chest row equals 'setdose compare' (sets, difference, interval, probabilities)"
-on_screen "B over A .*: $VTEXT" "the verdict equals 'setdose compare' ($VERDICT)"
+on_screen "$PAIR" "chest row equals 'setdose compare' (sets, difference, interval, decision)"
+on_screen "B over A .*: $DECISION, the 90% interval" "the decision equals 'setdose compare' ($DECISION)"
 keys x
 wait_for "A: '$MIN'" "x swaps A and B"
 keys Escape
