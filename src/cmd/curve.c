@@ -12,6 +12,7 @@
 #include "../io/table.h"
 #include "../plot/textplot.h"
 #include "cmd.h"
+#include "../io/jsonout.h"
 
 extern const struct sd_cmd cmd_curve;
 
@@ -78,7 +79,7 @@ static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, s
 		cJSON_AddNumberToObject(root, "level", ctx->opt.level);
 		cJSON_AddNumberToObject(root, "plateau", plateau);
 		cJSON_AddItemToObject(root, "points", arr);
-		char *s = cJSON_Print(root);
+		char *s = json_print(root, 1);
 		if (s)
 			fprintf(ctx->out, "%s\n", s);
 		free(s);

@@ -15,6 +15,7 @@
 #include "../io/safefile.h"
 #include "../io/table.h"
 #include "mrmodel.h"
+#include "../io/jsonout.h"
 
 extern const struct sd_cmd cmd_fit;
 
@@ -197,7 +198,7 @@ static void print_json(FILE *out, const char *path, const struct mrm *m,
 	cJSON_AddItemToObject(root, "i2_study", num(f->i2_study));
 	cJSON_AddItemToObject(root, "i2_effect", num(f->i2_effect));
 	cJSON_AddBoolToObject(root, "converged", f->converged);
-	char *s = cJSON_Print(root);
+	char *s = json_print(root, 1);
 	if (s)
 		fprintf(out, "%s\n", s);
 	free(s);
@@ -312,7 +313,7 @@ static void print_forms(struct sd_ctx *ctx, const char *path, const struct mrm *
 			cJSON_AddItemToObject(o, "rank_mlpd", num(x->rank[3]));
 			cJSON_AddItemToArray(arr, o);
 		}
-		char *s = cJSON_Print(arr);
+		char *s = json_print(arr, 1);
 		if (s)
 			fprintf(ctx->out, "%s\n", s);
 		free(s);
