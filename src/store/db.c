@@ -363,7 +363,7 @@ int db_commit(struct sd_db *db, struct sd_err *e)
 
 void db_rollback(struct sd_db *db)
 {
-	if (!sqlite3_get_autocommit(db->h))
+	if (db->h && !sqlite3_get_autocommit(db->h))
 		sqlite3_exec(db->h, "ROLLBACK", NULL, NULL, NULL);
 }
 

@@ -14,6 +14,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <unistd.h>
 
 #define MAXCOLS 64
 
@@ -256,6 +257,10 @@ int db_recover(const char *src, const char *dest, const char *label, struct db_r
 	}
 	snprintf(in->path, sizeof in->path, "%s", src);
 	snprintf(out->path, sizeof out->path, "%s", label);
+	if (access(src, F_OK)) {
+		sd_fail(e, "database '%s' does not exist", src);
+		goto done;
+	}
 	if (dbi_open_ro(in, e))
 		goto done;
 	if (sqlite3_open_v2(dest, &out->h, SQLITE_OPEN_READWRITE, NULL) != SQLITE_OK) {
