@@ -10,6 +10,7 @@
 #include <string.h>
 #include <sys/resource.h>
 #include <sys/stat.h>
+#include <sys/wait.h>
 #include <unistd.h>
 
 #include "io/safefile.h"
@@ -216,6 +217,35 @@ static void race_keeps_new_file(void **state)
 	unlink(p);
 }
 
+/* Ctrl-C while a file is being written: the temporary file goes, the old file stays. */
+static void signal_removes_temporary(void **state)
+{
+	char p[300];
+	int status;
+	pid_t pid;
+	(void)state;
+	path_of(p, sizeof p, "interrupted.csv");
+	put(p, "before\n");
+	pid = fork();
+	assert_true(pid >= 0);
+	if (pid == 0) {
+		struct sf_file f;
+		struct sd_err e = { 0 };
+		if (sf_open(&f, p, 1, &e))
+			_exit(3);
+		fputs("half written", f.fp);
+		fflush(f.fp);
+		raise(SIGINT);
+		_exit(4);   /* not reached: SIGINT ends the process after the cleanup */
+	}
+	assert_int_equal(waitpid(pid, &status, 0), pid);
+	assert_true(WIFSIGNALED(status));
+	assert_int_equal(WTERMSIG(status), SIGINT);
+	assert_string_equal(slurp(p), "before\n");
+	assert_int_equal(entries(), 1);
+	unlink(p);
+}
+
 int main(void)
 {
 	const struct CMUnitTest tests[] = {
@@ -223,6 +253,7 @@ int main(void)
 		cmocka_unit_test(refuses_existing_and_links),
 		cmocka_unit_test(failure_leaves_old_file),
 		cmocka_unit_test(race_keeps_new_file),
+		cmocka_unit_test(signal_removes_temporary),
 	};
 	return cmocka_run_group_tests(tests, setup, teardown);
 }
