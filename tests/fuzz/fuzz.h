@@ -14,6 +14,7 @@
 #include "io/library_io.h"
 
 int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size);
+/* Optional: the harnesses that need set-up define it. */
 int LLVMFuzzerInitialize(int *argc, char ***argv);
 
 /* The bundled library, loaded once (a harness that cannot load it stops at once). */

@@ -5,13 +5,6 @@
 #include "core/curve.h"
 #include "io/profile_io.h"
 
-int LLVMFuzzerInitialize(int *argc, char ***argv)
-{
-	(void)argc;
-	(void)argv;
-	return 0;
-}
-
 int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
 {
 	struct sd_profile p;
