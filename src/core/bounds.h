@@ -5,7 +5,9 @@
  *
  * The ranges are wide: they exclude only values no strength study reports (a ratio of means
  * beyond e^5 = 148-fold, a sampling variance below 1e-8 that would dominate every weight) and
- * values that break the arithmetic. Common practice, no source. */
+ * values that break the arithmetic. Common practice, no source.
+ *
+ * The training log, when it exists, adds the ranges of its fields here. */
 #ifndef SD_BOUNDS_H
 #define SD_BOUNDS_H
 
