@@ -247,6 +247,8 @@ int db_recover(const char *src, const char *dest, const char *label, struct db_r
 	struct sd_db *in = calloc(1, sizeof *in), *out = calloc(1, sizeof *out);
 	struct table_copy tabs[16];
 	char names[16][64], msg[200];
+	struct sd_err ve = { 0 };
+	long long ver;
 	int n = 0, readable = 0, ret = -1;
 
 	memset(r, 0, sizeof *r);
@@ -263,6 +265,12 @@ int db_recover(const char *src, const char *dest, const char *label, struct db_r
 	}
 	if (dbi_open_ro(in, e))
 		goto done;
+	/* Columns a newer setdose added would be lost: a newer file needs a newer setdose. */
+	if (!dbi_count(in, "PRAGMA user_version", -1, &ver, &ve) && ver > db_schema_latest()) {
+		sd_fail(e, "database '%s' has schema version %lld, newer than this setdose "
+			"understands (%d); recover it with a newer setdose", src, ver, db_schema_latest());
+		goto done;
+	}
 	if (sqlite3_open_v2(dest, &out->h, SQLITE_OPEN_READWRITE, NULL) != SQLITE_OK) {
 		sd_fail(e, "cannot write '%s': %s", label, out->h ? sqlite3_errmsg(out->h) : "out of memory");
 		goto done;

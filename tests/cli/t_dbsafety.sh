@@ -93,6 +93,11 @@ has err "'saved.db' exists; choose another file or add --force"
 run 1 "$SD" --db missing.db db recover x.db
 has err "^setdose: database 'missing.db' does not exist$"
 check "recover: nothing created for a missing database" test ! -e x.db
+cp "$DB" newer.db
+sqlite3 newer.db 'PRAGMA user_version = 99'
+run 1 "$SD" --db newer.db db recover z.db
+has err "^setdose: database 'newer.db' has schema version 99, newer than this setdose understands"
+check "recover: nothing written for a newer database" test ! -e z.db
 printf 'not a database at all, just some text padding it out to more than a header\n%.0s' 1 2 3 4 5 6 >junk.db
 run 1 "$SD" --db junk.db db recover y.db
 has err "nothing can be read|not a database"
