@@ -11,7 +11,7 @@ OPT     ?= -O2 -g
 SAN     ?=
 PKGS     = ncursesw sqlite3 gsl cairo libcjson
 DEPS_DEB = build-essential pkg-config libncurses-dev libsqlite3-dev libiniparser-dev libgsl-dev \
-           libcairo2-dev libcmocka-dev libcjson-dev tmux sqlite3 valgrind poppler-utils
+           libcairo2-dev libcmocka-dev libcjson-dev tmux sqlite3 valgrind poppler-utils clang
 
 PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS) 2>/dev/null)
 # Libraries whose Debian -dev package ships an archive are linked statically: every command is
@@ -35,7 +35,8 @@ TBIN  := $(TSRC:tests/%.c=$(B)/tests/%)
 BSRC  := $(sort $(wildcard tests/bench/bench_*.c))
 BBIN  := $(BSRC:tests/bench/%.c=$(B)/bench/%)
 
-.PHONY: all deps check unit unit-asan cli cli-asan tui-test demo bench install uninstall clean help
+.PHONY: all deps check unit unit-asan cli cli-asan tui-test demo bench install uninstall clean help \
+        fuzz fuzz-build fuzz-replay
 
 all: $(B)/setdose
 
@@ -83,6 +84,7 @@ check:
 	    SAN='-fsanitize=address,undefined -fno-sanitize-recover=all' unit cli \
 	    RESULTS=$(CURDIR)/$(B)/results.txt || echo "make asan unit cli failed" >>$(B)/results.txt
 	$(MAKE) tui-test || echo "make tui-test failed" >>$(B)/results.txt
+	$(MAKE) fuzz-replay || echo "make fuzz-replay failed" >>$(B)/results.txt
 	@sh tests/summary.sh $(B)/results.txt
 
 RESULTS ?= $(CURDIR)/$(B)/results.txt
@@ -101,6 +103,56 @@ cli: $(B)/setdose
 tui-test: $(B)/setdose
 	@mkdir -p $(dir $(RESULTS))
 	@if ls tests/tui/t_*.sh >/dev/null 2>&1; then sh tests/tui/run.sh $(RESULTS) $(CURDIR)/$(B)/setdose; fi
+
+# libFuzzer harnesses (tests/fuzz/fuzz_*.c), built with clang, AddressSanitizer and
+# UndefinedBehaviorSanitizer into build/fuzz. `make fuzz FUZZ_SECONDS=N` runs each target for N
+# seconds, one after the other, on one core, growing build/fuzz/corpus/TARGET from the seeds in
+# tests/fuzz/corpus/TARGET; an input that crashes is written to build/fuzz/crash-TARGET-* (copy
+# it into tests/fuzz/crashes/TARGET once fixed). `make fuzz-replay` (part of `make check`) runs
+# every seed and every input that ever crashed through the harnesses once; without clang it
+# says so, and tests/cli/t_fuzzcorpus.sh replays them through the setdose binary instead.
+FUZZ_TARGETS = program_ini program_csv library profile effects
+FUZZ_SECONDS ?= 60
+FUZZ_B       = build/fuzz
+FUZZ_BINS    = $(FUZZ_TARGETS:%=$(FUZZ_B)/bin/fuzz_%)
+FUZZ_SAN     = -fsanitize=address,undefined -fno-sanitize-recover=all
+FUZZ_FLAGS   = -Isrc -Itests/fuzz -DFUZZ_DATADIR='"$(CURDIR)/profiles"'
+
+fuzz-build:
+	@command -v clang >/dev/null || { echo "fuzz: needs clang (apt-get install clang)"; exit 1; }
+	$(MAKE) B=$(FUZZ_B) CC=clang OPT='-O1 -g -fno-omit-frame-pointer' \
+	    SAN='$(FUZZ_SAN) -fsanitize=fuzzer-no-link' CFLAGS=-Wno-unknown-warning-option $(FUZZ_BINS)
+
+$(FUZZ_B)/bin/fuzz_program_ini: tests/fuzz/fuzz_program.c tests/fuzz/fuzz.h $(OBJ)
+	@mkdir -p $(dir $@)
+	$(CC) $(CFLAGS_ALL) $(FUZZ_FLAGS) -DFUZZ_CSV=0 -fsanitize=fuzzer -o $@ $< $(OBJ) $(LDLIBS_ALL)
+$(FUZZ_B)/bin/fuzz_program_csv: tests/fuzz/fuzz_program.c tests/fuzz/fuzz.h $(OBJ)
+	@mkdir -p $(dir $@)
+	$(CC) $(CFLAGS_ALL) $(FUZZ_FLAGS) -DFUZZ_CSV=1 -fsanitize=fuzzer -o $@ $< $(OBJ) $(LDLIBS_ALL)
+$(FUZZ_B)/bin/fuzz_%: tests/fuzz/fuzz_%.c tests/fuzz/fuzz.h $(OBJ)
+	@mkdir -p $(dir $@)
+	$(CC) $(CFLAGS_ALL) $(FUZZ_FLAGS) -fsanitize=fuzzer -o $@ $< $(OBJ) $(LDLIBS_ALL)
+
+fuzz: fuzz-build
+	@for t in $(FUZZ_TARGETS); do \
+	    mkdir -p $(FUZZ_B)/corpus/$$t tests/fuzz/crashes/$$t; \
+	    echo "== fuzz $$t for $(FUZZ_SECONDS) s"; \
+	    $(FUZZ_B)/bin/fuzz_$$t -max_total_time=$(FUZZ_SECONDS) -timeout=10 -rss_limit_mb=1024 \
+	        -print_final_stats=1 -artifact_prefix=$(FUZZ_B)/crash-$$t- \
+	        $(FUZZ_B)/corpus/$$t tests/fuzz/corpus/$$t tests/fuzz/crashes/$$t 2>&1 | \
+	        grep -E '^(stat::number_of_executed_units|stat::average_exec_per_sec|stat::new_units_added|==[0-9]+==|SUMMARY|Done)' ; \
+	done
+
+fuzz-replay:
+	@mkdir -p $(dir $(RESULTS))
+	@if command -v clang >/dev/null; then \
+	    $(MAKE) fuzz-build >$(FUZZ_B).log 2>&1 || { echo "fuzz build (see $(FUZZ_B).log) failed" >>$(RESULTS); exit 1; }; \
+	    for t in $(FUZZ_TARGETS); do \
+	        if $(FUZZ_B)/bin/fuzz_$$t -runs=0 tests/fuzz/corpus/$$t tests/fuzz/crashes/$$t >$(FUZZ_B)/replay-$$t.log 2>&1; \
+	        then echo "fuzz replay $$t: seeds and past crashes passed" >>$(RESULTS); \
+	        else echo "fuzz replay $$t: seeds and past crashes (see $(FUZZ_B)/replay-$$t.log) failed" >>$(RESULTS); fi; \
+	    done; \
+	else echo "fuzz replay: no clang; the corpus is replayed through setdose by tests/cli/t_fuzzcorpus.sh"; fi
 
 demo: $(B)/setdose
 	@sh tests/demo.sh $(CURDIR)/$(B)/setdose

@@ -291,11 +291,12 @@ static void files_backup_and_versions(void **state)
 	free(list);
 	assert_int_equal(db_check(db, &problems, &e), 0);
 	assert_int_equal(problems, 0);
+	/* The backup goes into an empty file the caller made (io/safefile.h's temporary file);
+	 * refusing an existing target is the safe writer's job (test_safefile.c). */
 	snprintf(bak, sizeof bak, "%s/backup.db", tmpdir);
-	assert_int_equal(db_backup(db, bak, 0, &e), 0);
-	assert_int_equal(db_backup(db, bak, 0, &e), -1);
-	assert_non_null(strstr(e.msg, "already exists"));
-	assert_int_equal(db_backup(db, bak, 1, &e), 0);
+	assert_non_null(f = fopen(bak, "w"));
+	fclose(f);
+	assert_int_equal(db_backup(db, bak, "backup.db", &e), 0);
 	db_close(db);
 	assert_int_equal(db_open(bak, &db2, &e), 0);
 	assert_int_equal(db_athlete_list(db2, &list, &n, &e), 0);

@@ -671,11 +671,15 @@ static int exec_allot(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 				   { NULL } };
 	for (int i = 0; i < pl->nnotes; i++)
 		view.notes[i] = pl->notes[i];
+	/* The program file is written before anything is printed, so no result is shown for a
+	 * write that then fails. */
+	if (pl->a.write && write_plan(ctx, pl, e))
+		goto done;
 	if (allot_out_print(ctx->out, &view, (enum allot_fmt)ctx->opt.format, ctx->opt.color)) {
 		sd_fail(e, "out of memory");
 		goto done;
 	}
-	rc = pl->a.write ? write_plan(ctx, pl, e) : 0;
+	rc = 0;
 done:
 	plan_free(pl);
 	free(pl);

@@ -5,17 +5,19 @@
 
 #include "../core/audit.h"
 #include "../io/program_io.h"
+#include "../io/safefile.h"
 #include "../plot/chart.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_chart, cmd_report;
 
-static int parse(int argc, char **argv, const char **out, const char **program,
+static int parse(int argc, char **argv, const char **out, const char **program, int *force,
 		 const struct sd_cmd *self, struct sd_err *e)
 {
 	static const struct option longopts[] = {
 		{ "out", required_argument, NULL, 'o' },
 		{ "program", required_argument, NULL, 'p' },
+		{ "force", no_argument, NULL, 'f' },
 		{ NULL, 0, NULL, 0 },
 	};
 	int c;
@@ -23,6 +25,8 @@ static int parse(int argc, char **argv, const char **out, const char **program,
 	while ((c = getopt_long(argc, argv, "+o:", longopts, NULL)) != -1) {
 		if (c == 'o')
 			*out = optarg;
+		else if (c == 'f')
+			*force = 1;
 		else if (c == 'p' && program)
 			*program = optarg;
 		else
@@ -33,6 +37,18 @@ static int parse(int argc, char **argv, const char **out, const char **program,
 	return 0;
 }
 
+/* Draws into a temporary file put in place only once complete (io/safefile.h). */
+static int draw_to(const char *out, int force, const struct sd_chart *c,
+		   const struct sd_audit_info *info, int n, struct sd_err *e)
+{
+	struct sf_file sf;
+
+	if (sf_open(&sf, out, force, e))
+		return -1;
+	return sf_finish(&sf, c ? chart_write(out, c, sf_sink, &sf, e) :
+			 report_write(out, info, n, sf_sink, &sf, e), e);
+}
+
 static int exec_chart(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	const char *out = NULL, *program = NULL;
@@ -40,16 +56,20 @@ static int exec_chart(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	struct sd_audit au;
 	struct sd_audit_opts o = { ctx->opt.level, ctx->opt.max_rir, SD_SESSION_CAP };
 	struct sd_chart c = { &ctx->profile, cmd_covars(ctx, 0), ctx->opt.level, NULL, NULL };
-	int rc;
+	int rc, force = 0;
 
-	if (parse(argc, argv, &out, &program, &cmd_chart, e))
+	if (parse(argc, argv, &out, &program, &force, &cmd_chart, e))
 		return -1;
 	if (optind < argc)
 		return sd_usage(e, "chart takes no arguments besides options, got '%s'", argv[optind]);
 	if (!chart_format_ok(out))
 		return sd_usage(e, "cannot tell the chart format of '%s': name it .png, .svg or .pdf", out);
-	if (!program)
-		return chart_write(out, &c, e);
+	if (!program) {
+		if (draw_to(out, force, &c, NULL, 0, e))
+			return -1;
+		fprintf(ctx->out, "wrote %s\n", out);
+		return 0;
+	}
 	if (program_load(program, &ctx->lib, &prog, e))
 		return -1;
 	c.cov = cmd_covars(ctx, prog.weeks);
@@ -57,7 +77,7 @@ static int exec_chart(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	if (!rc) {
 		c.audit = &au;
 		c.title = prog.name;
-		rc = chart_write(out, &c, e);
+		rc = draw_to(out, force, &c, NULL, 0, e);
 		audit_free(&au);
 	}
 	prog_free(&prog);
@@ -73,9 +93,9 @@ static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 	struct sd_program *progs;
 	struct sd_audit *audits;
 	struct sd_audit_info *info;
-	int n, done = 0, rc = -1;
+	int n, done = 0, rc = -1, force = 0;
 
-	if (parse(argc, argv, &out, NULL, &cmd_report, e))
+	if (parse(argc, argv, &out, NULL, &force, &cmd_report, e))
 		return -1;
 	n = argc - optind;
 	if (n < 1)
@@ -101,7 +121,7 @@ static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 		}
 		info[done] = (struct sd_audit_info){ path, &progs[done], &ctx->profile, &audits[done], NULL };
 	}
-	rc = report_write(out, info, n, e);
+	rc = draw_to(out, force, NULL, info, n, e);
 	if (!rc)
 		fprintf(ctx->out, "wrote %s (%d page%s)\n", out, n, n == 1 ? "" : "s");
 out:
@@ -118,9 +138,10 @@ out:
 const struct sd_cmd cmd_chart = {
 	.name = "chart",
 	.summary = "draw the curve (and a program's muscles) to PNG, SVG or PDF",
-	.usage = "chart --out FILE.png|svg|pdf [--program FILE]\n"
+	.usage = "chart --out FILE.png|svg|pdf [--program FILE] [--force]\n"
 		 "  --out FILE      the picture; its extension picks the format\n"
-		 "  --program FILE  mark the program's muscles at their weekly doses",
+		 "  --program FILE  mark the program's muscles at their weekly doses\n"
+		 "  --force         replace an existing FILE",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_chart,
 };
@@ -128,8 +149,9 @@ const struct sd_cmd cmd_chart = {
 const struct sd_cmd cmd_report = {
 	.name = "report",
 	.summary = "a printable PDF report: one page per program with table and chart",
-	.usage = "report --out FILE.pdf PROGRAM...\n"
-		 "  --out FILE.pdf  the report; one A4 page per program",
+	.usage = "report --out FILE.pdf [--force] PROGRAM...\n"
+		 "  --out FILE.pdf  the report; one A4 page per program\n"
+		 "  --force         replace an existing FILE.pdf",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_report,
 };

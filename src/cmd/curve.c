@@ -15,6 +15,7 @@
 #include "../io/table.h"
 #include "../plot/textplot.h"
 #include "cmd.h"
+#include "../io/jsonout.h"
 
 extern const struct sd_cmd cmd_curve;
 
@@ -94,10 +95,10 @@ static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, s
 			cJSON_AddStringToObject(root, "warning", note);
 		cJSON_AddItemToObject(root, "points", arr);
 		cJSON_AddStringToObject(root, "caution", aout_caution);
-		char *str = cJSON_Print(root);
-		if (str)
-			fprintf(ctx->out, "%s\n", str);
-		free(str);
+		char *s = json_print(root, 1);
+		if (s)
+			fprintf(ctx->out, "%s\n", s);
+		free(s);
 		cJSON_Delete(root);
 	} else {
 		if (ctx->opt.format == SD_FMT_TABLE)

@@ -3,6 +3,7 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "../io/safefile.h"
 #include "dbutil.h"
 
 extern const struct sd_cmd cmd_db;
@@ -21,27 +22,65 @@ static int do_check(struct sd_ctx *ctx, struct sd_db *db, struct sd_err *e)
 	return 0;
 }
 
-static int do_backup(struct sd_ctx *ctx, struct sd_db *db, int argc, char **argv,
-		     struct sd_err *e)
+/* FILE [--force] after the subcommand's name. */
+static int target_args(int argc, char **argv, const char **file, int *force, struct sd_err *e)
 {
 	static const struct option longopts[] = {
 		{ "force", no_argument, NULL, 'f' },
 		{ NULL, 0, NULL, 0 },
 	};
-	int c, force = 0;
+	int c;
 
+	*force = 0;
 	optind = 0;
 	opterr = 0;
 	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
 		if (c != 'f')
 			return dbu_badopt(&cmd_db, argc, argv, e);
-		force = 1;
+		*force = 1;
 	}
 	if (optind != argc - 1)
 		return usage(e);
-	if (db_backup(db, argv[optind], force, e))
+	*file = argv[optind];
+	return 0;
+}
+
+/* The copy is made in a temporary file beside FILE, checked, and only then renamed into
+ * place (io/safefile.h): "backed up" is said of a copy that passed its check. */
+static int do_backup(struct sd_ctx *ctx, struct sd_db *db, int argc, char **argv,
+		     struct sd_err *e)
+{
+	struct sf_file sf;
+	const char *file;
+	int force;
+
+	if (target_args(argc, argv, &file, &force, e) || sf_open(&sf, file, force, e))
 		return -1;
-	fprintf(ctx->out, "backed up %s to %s\n", db_path(db), argv[optind]);
+	if (sf_finish(&sf, db_backup(db, sf.tmp, file, e), e))
+		return -1;
+	fprintf(ctx->out, "backed up %s to %s (copy checked)\n", db_path(db), file);
+	return 0;
+}
+
+/* Never in place: the damaged file is only read. */
+static int do_recover(struct sd_ctx *ctx, const char *path, int argc, char **argv,
+		      struct sd_err *e)
+{
+	struct db_recovery r;
+	struct sf_file sf;
+	const char *file;
+	int force;
+
+	if (target_args(argc, argv, &file, &force, e) || sf_open(&sf, file, force, e))
+		return -1;
+	if (sf_finish(&sf, db_recover(path, sf.tmp, file, &r, e), e))
+		return -1;
+	fprintf(ctx->out, "recovered %lld rows of %s into %s: %s\n", r.rows, path, file, r.detail);
+	if (r.dropped || r.damaged)
+		fprintf(ctx->out, "note: %lld row%s left out (a broken constraint or a lost parent "
+			"row), %d damaged region%s skipped; look the copy over before using it with "
+			"--db %s\n", r.dropped, r.dropped == 1 ? "" : "s", r.damaged,
+			r.damaged == 1 ? "" : "s", file);
 	return 0;
 }
 
@@ -61,6 +100,9 @@ static int exec_db(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		fprintf(ctx->out, "%s\n", path);
 		return 0;
 	}
+	/* 'recover' reads the damaged file itself, without opening it as a database. */
+	if (!strcmp(sub, "recover"))
+		return do_recover(ctx, path, argc - 1, argv + 1, e);
 	if (strcmp(sub, "check") && strcmp(sub, "backup"))
 		return usage(e);
 	if (!strcmp(sub, "check") && argc != 2)
@@ -74,12 +116,15 @@ static int exec_db(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 
 const struct sd_cmd cmd_db = {
 	.name = "db",
-	.summary = "the database: its path, an integrity check, an online backup",
-	.usage = "db path | db check | db backup FILE [--force]\n"
+	.summary = "the database: its path, an integrity check, a checked backup, recovery",
+	.usage = "db path | db check | db backup FILE [--force] | db recover FILE [--force]\n"
 		 "  path     prints the database path (--db, SETDOSE_DB, else the default)\n"
 		 "  check    PRAGMA integrity_check and foreign_key_check; exit 1 unless both pass\n"
-		 "  backup   copies the database while it is in use (SQLite online backup);\n"
-		 "           refuses an existing FILE unless --force",
+		 "  backup   copies the database while it is in use (SQLite online backup) and\n"
+		 "           checks the copy before putting it in place\n"
+		 "  recover  copies every row that can still be read from a damaged database\n"
+		 "           into the new FILE; the damaged file is never written\n"
+		 "  FILE     an existing FILE is replaced only with --force",
 	.flags = 0,
 	.exec = exec_db,
 };

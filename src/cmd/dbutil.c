@@ -9,6 +9,7 @@
 #include <time.h>
 #include <unistd.h>
 
+#include "../core/text.h"
 #include "../io/program_io.h"
 #include "../io/recout.h"
 
@@ -73,6 +74,7 @@ int dbu_num(const char *what, const char *s, double lo, double hi, double *out,
 int dbu_name(const char *what, const char *s, size_t max, struct sd_err *e)
 {
 	size_t n = strlen(s);
+	char label[64];
 
 	if (!n)
 		return sd_usage(e, "%s name is empty", what);
@@ -81,9 +83,11 @@ int dbu_name(const char *what, const char *s, size_t max, struct sd_err *e)
 				max - 1);
 	if (s[0] == ' ' || s[n - 1] == ' ')
 		return sd_usage(e, "%s name '%s' starts or ends with a space", what, s);
-	for (size_t i = 0; i < n; i++)
-		if ((unsigned char)s[i] < 0x20 || s[i] == 0x7f)
-			return sd_usage(e, "%s name has a control character", what);
+	snprintf(label, sizeof label, "%s name", what);
+	if (text_check(label, s, n, e)) {
+		e->code = SD_EXIT_USAGE;
+		return -1;
+	}
 	return 0;
 }
 

@@ -18,8 +18,8 @@ int dbu_int(const char *what, const char *s, long long lo, long long hi, long lo
 /* Parses a finite number in [lo, hi] given as `what`. */
 int dbu_num(const char *what, const char *s, double lo, double hi, double *out,
 	    struct sd_err *e);
-/* Checks a name for an athlete or program: 1..max-1 bytes, no control characters, no
- * leading or trailing space. */
+/* Checks a name for an athlete or program: 1..max-1 bytes, text core/text.h accepts (valid
+ * UTF-8, no control or bidirectional control characters), no leading or trailing space. */
 int dbu_name(const char *what, const char *s, size_t max, struct sd_err *e);
 /* Asks QUESTION on the terminal; 1 when answered yes. Without a terminal it fails, naming
  * the option (--yes) that skips the question. */

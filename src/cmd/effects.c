@@ -8,6 +8,7 @@
 
 #include "../core/effects.h"
 #include "../io/effects_io.h"
+#include "../io/safefile.h"
 #include "../io/table.h"
 #include "cmd.h"
 
@@ -30,6 +31,7 @@ struct job {
 	int r_default_set;
 	double r_default;
 	const char *out;
+	int force;                /* --force: replace an existing --output file */
 };
 
 /* Problems are collected over the whole file so one message lists every bad row. */
@@ -151,9 +153,9 @@ static int run(struct sd_ctx *ctx, struct job *j, const char *path, struct sd_er
 	struct ef_table t;
 	struct sd_effect *ef = NULL;
 	struct problems pb = { 0 };
+	struct sf_file sf;
 	double *r = NULL;
 	int *rdef = NULL, ndef = 0, rc = -1;
-	FILE *out = ctx->out;
 
 	if (eft_read(path, &t, e))
 		return -1;
@@ -180,20 +182,18 @@ static int run(struct sd_ctx *ctx, struct job *j, const char *path, struct sd_er
 			pb.n, t.nrow, pb.text, more);
 		goto done;
 	}
-	if (j->out && !(out = fopen(j->out, "w"))) {
-		sd_fail(e, "cannot write '%s': %s", j->out, strerror(errno));
-		goto done;
-	}
-	int werr = print_rows(out, j, &t, ef, r, rdef);
-	if (j->out) {
-		werr |= fclose(out) ? -1 : 0;
-		if (werr)
-			remove(j->out);
-	}
-	if (werr) {
-		sd_fail(e, "cannot write '%s': %s", j->out ? j->out : "standard output",
-			strerror(errno));
-		goto done;
+	if (!j->out) {
+		if (print_rows(ctx->out, j, &t, ef, r, rdef)) {
+			sd_fail(e, "cannot write standard output: %s", strerror(errno));
+			goto done;
+		}
+	} else {
+		/* A temporary file put in place only once complete (io/safefile.h). */
+		if (sf_open(&sf, j->out, j->force, e))
+			goto done;
+		if (sf_finish(&sf, print_rows(sf.fp, j, &t, ef, r, rdef) ?
+			      sd_fail(e, "cannot write '%s'", j->out) : 0, e))
+			goto done;
 	}
 	if (j->out)
 		fprintf(ctx->out, "wrote %d %s effects to '%s'\n", t.nrow,
@@ -212,8 +212,9 @@ done:
 
 static int exec_effects(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	enum { O_DESIGN = 500, O_RDEF, O_OUT, O_COL };
+	enum { O_DESIGN = 500, O_RDEF, O_OUT, O_FORCE, O_COL };
 	static const struct option longopts[] = {
+		{ "force", no_argument, NULL, O_FORCE },
 		{ "design", required_argument, NULL, O_DESIGN },
 		{ "r-default", required_argument, NULL, O_RDEF },
 		{ "output", required_argument, NULL, O_OUT },
@@ -264,6 +265,9 @@ static int exec_effects(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 		case O_OUT:
 			j.out = optarg;
 			break;
+		case O_FORCE:
+			j.force = 1;
+			break;
 		default:
 			return sd_usage(e, "usage: setdose %s", cmd_effects.usage);
 		}
@@ -285,7 +289,8 @@ const struct sd_cmd cmd_effects = {
 		 "                     --n COL --r COL; yi = ln(m_post/m_pre)\n"
 		 "  --r-default R      pre-post correlation where r is missing (marked in the\n"
 		 "                     r_source column)\n"
-		 "  -o, --output FILE  write the CSV to FILE instead of standard output",
+		 "  -o, --output FILE  write the CSV to FILE instead of standard output\n"
+		 "  --force            replace an existing --output FILE",
 	.flags = 0,
 	.exec = exec_effects,
 };

@@ -12,8 +12,10 @@
 #include <cjson/cJSON.h>
 
 #include "../io/profile_io.h"
+#include "../io/safefile.h"
 #include "../io/table.h"
 #include "mrmodel.h"
+#include "../io/jsonout.h"
 
 extern const struct sd_cmd cmd_fit;
 
@@ -196,7 +198,7 @@ static void print_json(FILE *out, const char *path, const struct mrm *m,
 	cJSON_AddItemToObject(root, "i2_study", num(f->i2_study));
 	cJSON_AddItemToObject(root, "i2_effect", num(f->i2_effect));
 	cJSON_AddBoolToObject(root, "converged", f->converged);
-	char *s = cJSON_Print(root);
+	char *s = json_print(root, 1);
 	if (s)
 		fprintf(out, "%s\n", s);
 	free(s);
@@ -311,7 +313,7 @@ static void print_forms(struct sd_ctx *ctx, const char *path, const struct mrm *
 			cJSON_AddItemToObject(o, "rank_mlpd", num(x->rank[3]));
 			cJSON_AddItemToArray(arr, o);
 		}
-		char *s = cJSON_Print(arr);
+		char *s = json_print(arr, 1);
 		if (s)
 			fprintf(ctx->out, "%s\n", s);
 		free(s);
@@ -436,13 +438,13 @@ static int athlete_from_default(const struct sd_ctx *ctx, struct sd_profile *p, 
 	return 0;
 }
 
-static int write_profile(struct sd_ctx *ctx, const char *path, const char *out,
+static int write_profile(struct sd_ctx *ctx, const char *path, const char *out, int force,
 			 const char *name, const struct mrm *m, const struct ef_model *mod,
-			 const struct mr_fit *f, struct sd_err *e)
+			 const struct mr_fit *f, double *avar, struct sd_err *e)
 {
 	struct sd_profile p;
-	char date[32], desc[768], tmp[1100];
-	FILE *fp;
+	struct sf_file sf;
+	char date[32], desc[768];
 
 	if (mr_to_profile(f, m->spec.form, mod->names, &p, e) || data_ranges(mod, &p, e) ||
 	    athlete_from_default(ctx, &p, e))
@@ -472,38 +474,50 @@ static int write_profile(struct sd_ctx *ctx, const char *path, const char *out,
 		 f->converged ? "converged" : "not converged", f->df ? "t" : "normal");
 	if (profile_validate(&p, e))
 		return sd_wrap(e, "the fitted profile is not usable");
-	/* Written beside the target and renamed, so a failed write leaves the old file intact. */
-	snprintf(tmp, sizeof tmp, "%s.tmp%ld", out, (long)getpid());
-	if (!(fp = fopen(tmp, "w")))
-		return sd_fail(e, "cannot write '%s': %s", out, strerror(errno));
-	if (profile_write(fp, &p, e) || fclose(fp)) {
-		remove(tmp);
-		return e->msg[0] ? -1 : sd_fail(e, "cannot write '%s': %s", out, strerror(errno));
-	}
-	if (rename(tmp, out)) {
-		int err = errno;
-		remove(tmp);
-		return sd_fail(e, "cannot write '%s': %s", out, strerror(err));
-	}
-	if (ctx->opt.format == SD_FMT_TABLE) {
-		fprintf(ctx->out, "\nwrote profile '%s' (%s form, %d terms); use it with --profile %s\n",
-			out, form_name(p.form), p.nterms, out);
-		fprintf(ctx->out, "not estimable from study-level effects: the between-athlete "
-			"variance (%.6g copied from the active profile, so the 'one athlete' band is "
-			"that profile's assumption)\n", p.athlete_var);
-		for (int j = 2; j < f->p; j++)
-			if (strcmp(mod->names[j], "weeks") && strcmp(mod->names[j], "trained"))
-				fprintf(ctx->out, "note: moderator '%s' is not an athlete covariate (weeks, "
-					"trained); the curve holds it at 0\n", mod->names[j]);
-	}
+	/* A temporary file put in place only once complete (io/safefile.h). */
+	if (sf_open(&sf, out, force, e))
+		return -1;
+	*avar = p.athlete_var;
+	return sf_finish(&sf, profile_write(sf.fp, &p, e), e);
+}
+
+/* Said only once the profile is in place. */
+static void wrote_profile(struct sd_ctx *ctx, const char *out, const struct mrm *m,
+			  const struct ef_model *mod, const struct mr_fit *f, double avar)
+{
+	if (ctx->opt.format != SD_FMT_TABLE)
+		return;
+	fprintf(ctx->out, "\nwrote profile '%s' (%s form, %d terms); use it with --profile %s\n",
+		out, form_name(m->spec.form), f->p, out);
+	fprintf(ctx->out, "not estimable from study-level effects: the between-athlete variance "
+		"(%.6g copied from the active profile, so the one-athlete band is that profile's "
+		"assumption)\n", avar);
+	for (int j = 2; j < f->p; j++)
+		if (strcmp(mod->names[j], "weeks") && strcmp(mod->names[j], "trained"))
+			fprintf(ctx->out, "note: moderator '%s' is not an athlete covariate (weeks, "
+				"trained); the curve holds it at 0\n", mod->names[j]);
+}
+
+/* Every number the fit prints is finite; otherwise nothing of it is shown. */
+static int fit_finite(const char *path, const struct ef_model *mod, const struct mr_fit *f,
+		      struct sd_err *e)
+{
+	for (int j = 0; j < f->p; j++)
+		if (!isfinite(f->beta[j]) || !isfinite(f->se[j]))
+			return sd_fail(e, "the fit of '%s' gave a non-finite estimate for '%s'; check "
+				       "the effect sizes and variances", path, mod->names[j]);
+	if (!isfinite(f->tau2) || !isfinite(f->sigma2) || !isfinite(f->loglik))
+		return sd_fail(e, "the fit of '%s' gave non-finite variance components; check the "
+			       "effect sizes and variances", path);
 	return 0;
 }
 
 static int exec_fit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	enum { O_FORMS = 400, O_WRITE, O_NAME };
+	enum { O_FORMS = 400, O_WRITE, O_NAME, O_FORCE };
 	static const struct option longopts[] = {
 		MRM_LONGOPTS,
+		{ "force", no_argument, NULL, O_FORCE },
 		{ "forms", required_argument, NULL, O_FORMS },
 		{ "write", required_argument, NULL, O_WRITE },
 		{ "name", required_argument, NULL, O_NAME },
@@ -514,7 +528,8 @@ static int exec_fit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	struct ef_model mod;
 	struct mr_fit f;
 	const char *write = NULL, *name = "fitted";
-	int c, forms = 0, rc = -1;
+	double avar = 0;
+	int c, forms = 0, force = 0, rc = -1;
 
 	mrm_init(&m);
 	optind = 0;
@@ -532,6 +547,9 @@ static int exec_fit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 			break;
 		case O_WRITE:
 			write = optarg;
+			break;
+		case O_FORCE:
+			force = 1;
 			break;
 		case O_NAME:
 			if (!*optarg || strlen(optarg) >= sizeof ((struct sd_profile *)0)->name)
@@ -555,13 +573,20 @@ static int exec_fit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	struct mr_opts o = mrm_fit_opts(&m, ctx);
 	if (mr_fit(&mod.d, &o, &f, e)) {
 		/* A fit that ran but did not converge is shown, then reported as a failure. */
-		if (f.nstudy && !f.converged && ctx->opt.format == SD_FMT_TABLE)
+		struct sd_err ignore;
+		if (f.nstudy && !f.converged && ctx->opt.format == SD_FMT_TABLE &&
+		    !fit_finite(argv[optind], &mod, &f, &ignore))
 			print_fit(ctx, argv[optind], &m, &mod, &f);
 		goto done;
 	}
-	print_fit(ctx, argv[optind], &m, &mod, &f);
-	if (write && write_profile(ctx, argv[optind], write, name, &m, &mod, &f, e))
+	/* The profile is written before anything is printed, so no result is shown for a
+	 * write that then fails. */
+	if (fit_finite(argv[optind], &mod, &f, e) ||
+	    (write && write_profile(ctx, argv[optind], write, force, name, &m, &mod, &f, &avar, e)))
 		goto done;
+	print_fit(ctx, argv[optind], &m, &mod, &f);
+	if (write)
+		wrote_profile(ctx, write, &m, &mod, &f, avar);
 	rc = 0;
 done:
 	ef_model_free(&mod);
@@ -580,6 +605,7 @@ const struct sd_cmd cmd_fit = {
 		 "                     from the data; the between-athlete variance, which\n"
 		 "                     study-level effects cannot estimate, copied from the active\n"
 		 "                     profile and marked so)\n"
+		 "  --force            replace an existing --write FILE\n"
 		 "  --name NAME        the written profile's name (default fitted)\n"
 		 "  (global --swc PCT sets the written profile's SWC; default 3%)",
 	.flags = 0,

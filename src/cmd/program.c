@@ -44,8 +44,10 @@ static void pick_name(const char *opt, const struct sd_program *p, const char *p
 		*dot = '\0';
 }
 
-/* Validates one file and stores it, inside the caller's transaction. */
-static int add_one(struct sd_ctx *ctx, const char *path, const char *name_opt, struct sd_err *e)
+/* Validates one file and stores it, inside the caller's transaction; `said` gets the line to
+ * print once the transaction has committed. */
+static int add_one(struct sd_ctx *ctx, const char *path, const char *name_opt, char *said,
+		   size_t n, struct sd_err *e)
 {
 	struct sd_program prog;
 	char *text = NULL, name[DB_PROGNAME_MAX + 64];
@@ -62,10 +64,9 @@ static int add_one(struct sd_ctx *ctx, const char *path, const char *name_opt, s
 		goto done;
 	if (db_program_add(ctx->db, name, text, len, is_csv, NULL, e))
 		goto done;
-	if (ctx->opt.format == SD_FMT_TABLE)
-		fprintf(ctx->out, "added program '%s' from %s (%d day%s, %d exercise entr%s)\n", name,
-			path, prog.ndays, prog.ndays == 1 ? "" : "s", prog.nentries,
-			prog.nentries == 1 ? "y" : "ies");
+	snprintf(said, n, "added program '%s' from %s (%d day%s, %d exercise entr%s)\n", name,
+		 path, prog.ndays, prog.ndays == 1 ? "" : "s", prog.nentries,
+		 prog.nentries == 1 ? "y" : "ies");
 	/* How it was read (an old-style @N, a repeated exercise) matters before it is used. */
 	for (int i = 0; i < prog.nnotes; i++)
 		fprintf(stderr, "setdose: warning: '%s' %s\n", path, prog.notes[i].text);
@@ -83,7 +84,8 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		{ NULL, 0, NULL, 0 },
 	};
 	const char *name = NULL;
-	int c;
+	char (*said)[600] = NULL;
+	int c, rc = -1;
 
 	optind = 0;
 	opterr = 0;
@@ -96,17 +98,27 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		return usage(e);
 	if (name && argc - optind > 1)
 		return sd_usage(e, "--name names one program; give one FILE with it");
-	/* All files in one transaction: either every template is stored or none is. */
+	/* All files in one transaction: either every template is stored or none is, and
+	 * "added" is said only after the commit. */
+	if (!(said = calloc((size_t)(argc - optind), sizeof *said)))
+		return sd_fail(e, "out of memory");
 	if (db_begin(ctx->db, e))
-		return -1;
+		goto done;
 	for (int i = optind; i < argc; i++)
-		if (add_one(ctx, argv[i], name, e))
-			return -1;
+		if (add_one(ctx, argv[i], name, said[i - optind], sizeof said[0], e))
+			goto done;
 	if (db_commit(ctx->db, e))
-		return -1;
-	if (ctx->opt.format == SD_FMT_TABLE && argc - optind > 1)
-		fprintf(ctx->out, "added %d programs\n", argc - optind);
-	return 0;
+		goto done;
+	if (ctx->opt.format == SD_FMT_TABLE) {
+		for (int i = 0; i < argc - optind; i++)
+			fputs(said[i], ctx->out);
+		if (argc - optind > 1)
+			fprintf(ctx->out, "added %d programs\n", argc - optind);
+	}
+	rc = 0;
+done:
+	free(said);
+	return rc;
 }
 
 static int do_list(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)

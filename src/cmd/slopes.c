@@ -10,6 +10,7 @@
 
 #include "../io/table.h"
 #include "mrmodel.h"
+#include "../io/jsonout.h"
 
 extern const struct sd_cmd cmd_slopes;
 
@@ -193,7 +194,7 @@ static void print_json(FILE *out, const struct ef_model *mod, const struct mr_fi
 		cJSON_AddItemToArray(arr, o);
 	}
 	cJSON_AddItemToObject(root, "studies", arr);
-	char *s = cJSON_Print(root);
+	char *s = json_print(root, 1);
 	if (s)
 		fprintf(out, "%s\n", s);
 	free(s);

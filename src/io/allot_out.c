@@ -354,7 +354,7 @@ static int print_json(FILE *f, const struct allot_view *v)
 		cJSON_AddItemToArray(notes, cJSON_CreateString(v->notes[i]));
 	cJSON_AddItemToObject(o, "warnings", warnings_json(v));
 	cJSON_AddStringToObject(o, "caution", aout_caution);
-	if (!(text = cJSON_Print(o)))
+	if (!(text = json_print(o, 1)))
 		goto done;
 	fprintf(f, "%s\n", text);
 	rc = 0;

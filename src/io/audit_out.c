@@ -282,7 +282,7 @@ int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
 		cJSON_AddStringToObject(w, "text", a->warn[i].text);
 		cJSON_AddItemToArray(ws, w);
 	}
-	if (!ms || !ws || !(text = cJSON_Print(o)))
+	if (!ms || !ws || !(text = json_print(o, 1)))
 		goto out;
 	fprintf(f, "%s%s", first ? "\n" : ",\n", text);
 	free(text);
@@ -300,7 +300,7 @@ void aout_json_begin(FILE *f)
 void aout_json_end(FILE *f)
 {
 	cJSON *s = cJSON_CreateString(aout_caution);
-	char *text = s ? cJSON_PrintUnformatted(s) : NULL;
+	char *text = s ? json_print(s, 0) : NULL;
 	fprintf(f, "\n],\n\"caution\": %s}\n", text ? text : "\"\"");
 	free(text);
 	cJSON_Delete(s);

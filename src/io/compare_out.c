@@ -313,7 +313,7 @@ int cmp_out_json(FILE *f, const struct cmp_view *v)
 	if (v->note)
 		cJSON_AddStringToObject(o, "note", v->note);
 	cJSON_AddStringToObject(o, "caution", aout_caution);
-	if (!(text = cJSON_Print(o)))
+	if (!(text = json_print(o, 1)))
 		goto done;
 	fprintf(f, "%s\n", text);
 	rc = 0;

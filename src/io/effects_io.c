@@ -6,6 +6,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "../core/bounds.h"
 #include "csv.h"
 
 static char *dup_trim(const char *s)
@@ -231,6 +232,15 @@ static int check_spec(const struct ef_spec *s, struct sd_err *e)
 	return 0;
 }
 
+/* The number read from cell (row, col) is inside its documented range (core/bounds.h). */
+static int in_range(const struct ef_table *t, int row, int col, const struct sd_bound *b,
+		    double x, struct sd_err *e)
+{
+	if (bound_check(b, t->head[col], x, e))
+		return sd_wrap(e, "'%s' line %d", t->path, t->line[row]);
+	return 0;
+}
+
 /* Per row: the effect, its variance, dose and moderators, each checked. */
 static int read_rows(const struct ef_table *t, const struct ef_spec *s, const int *col,
 		     struct ef_model *m, struct sd_err *e)
@@ -242,12 +252,16 @@ static int read_rows(const struct ef_table *t, const struct ef_spec *s, const in
 		if (eft_number(t, i, col[0], &m->y[i], e) || eft_number(t, i, col[1], &m->v[i], e) ||
 		    eft_number(t, i, col[2], &m->dose[i], e))
 			return -1;
-		if (!(m->v[i] > 0))
+		if (m->v[i] <= 0)
 			return sd_fail(e, "'%s' line %d: sampling variance %s = %g (must be positive)",
 				       t->path, t->line[i], t->head[col[1]], m->v[i]);
 		if (m->dose[i] < 0)
 			return sd_fail(e, "'%s' line %d: dose %s = %g (weekly sets cannot be negative)",
 				       t->path, t->line[i], t->head[col[2]], m->dose[i]);
+		if (in_range(t, i, col[0], &bound_yi, m->y[i], e) ||
+		    in_range(t, i, col[1], &bound_vi, m->v[i], e) ||
+		    in_range(t, i, col[2], &bound_dose, m->dose[i], e))
+			return -1;
 		if (!*eft_cell(t, i, col[3]))
 			return sd_fail(e, "'%s' line %d: column '%s' (the study) is empty", t->path,
 				       t->line[i], t->head[col[3]]);
@@ -256,7 +270,8 @@ static int read_rows(const struct ef_table *t, const struct ef_spec *s, const in
 				       t->path, t->line[i], t->head[col[4]]);
 		m->X[(size_t)i * p] = 1;
 		for (int k = 0; k < s->nmods; k++) {
-			if (eft_number(t, i, col[5 + k], &x, e))
+			if (eft_number(t, i, col[5 + k], &x, e) ||
+			    in_range(t, i, col[5 + k], &bound_moderator, x, e))
 				return -1;
 			m->X[(size_t)i * p + 2 + k] = x;
 		}

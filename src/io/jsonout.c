@@ -4,6 +4,8 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "../core/text.h"
+
 void json_num(cJSON *o, const char *key, double v, int digits)
 {
 	double s = pow(10, digits);
@@ -78,4 +80,15 @@ void json_evidence(cJSON *o, const struct sd_profile *p, const struct sd_covars 
 		json_num(x, "used", v < r->lo ? r->lo : v > r->hi ? r->hi : v, 4);
 		cJSON_AddBoolToObject(x, "beyond", v < r->lo || v > r->hi);
 	}
+}
+
+char *json_print(const cJSON *o, int formatted)
+{
+	char *raw = formatted ? cJSON_Print(o) : cJSON_PrintUnformatted(o), *out;
+
+	if (!raw)
+		return NULL;
+	out = text_repair(raw);
+	cJSON_free(raw);
+	return out;
 }

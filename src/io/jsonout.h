@@ -23,4 +23,10 @@ void json_evidence(cJSON *o, const struct sd_profile *p, const struct sd_covars 
 /* Adds "beyond_evidence": ["dose", "weeks", ...] for SD_BEYOND_* bits. */
 void json_beyond(cJSON *o, unsigned bits);
 
+/* The text of o, formatted or on one line, with every byte that is not valid UTF-8 replaced
+ * by U+FFFD: cJSON copies string bytes as given, and a name from a file or the command line
+ * may be in any encoding, but JSON output is always valid UTF-8. NULL when out of memory;
+ * free() it. */
+char *json_print(const cJSON *o, int formatted);
+
 #endif

@@ -1,12 +1,9 @@
 #include "program_write.h"
 
-#include <errno.h>
-#include <fcntl.h>
-#include <stdlib.h>
 #include <string.h>
 #include <strings.h>
-#include <sys/stat.h>
-#include <unistd.h>
+
+#include "safefile.h"
 
 #define MAX_LINE 2048   /* 16 groups of at most about 40 characters fit */
 
@@ -85,50 +82,10 @@ int pwrite_ini(FILE *f, const struct sd_program *p, const struct sd_library *lib
 int pwrite_file(const char *path, const struct sd_program *p, const struct sd_library *lib,
 		const char *comment, int overwrite, struct sd_err *e)
 {
-	size_t n = strlen(path) + 16;
-	char *tmp = malloc(n);
-	FILE *f = NULL;
-	int fd = -1, rc = -1;
+	struct sf_file sf;
 
-	if (!tmp)
-		return sd_fail(e, "out of memory");
-	if (!overwrite && access(path, F_OK) == 0) {
-		sd_usage(e, "'%s' exists; choose another file or add --force", path);
-		goto done;
-	}
-	snprintf(tmp, n, "%s.XXXXXX", path);
-	if ((fd = mkstemp(tmp)) < 0) {
-		sd_fail(e, "cannot write '%s': %s", path, strerror(errno));
-		goto done;
-	}
-	if (!(f = fdopen(fd, "w"))) {
-		sd_fail(e, "cannot write '%s': %s", path, strerror(errno));
-		close(fd);
-		unlink(tmp);
-		goto done;
-	}
-	if (pwrite_ini(f, p, lib, comment, e)) {
-		fclose(f);
-		unlink(tmp);
-		goto done;
-	}
-	/* The program is a plain user file: the permissions of a new file under the umask, not
-	 * mkstemp's 0600. */
-	mode_t um = umask(0);
-	umask(um);
-	fchmod(fd, 0666 & ~um);
-	if (fflush(f) || ferror(f) || fclose(f)) {
-		sd_fail(e, "cannot write '%s': %s", path, strerror(errno));
-		unlink(tmp);
-		goto done;
-	}
-	if (rename(tmp, path)) {
-		sd_fail(e, "cannot write '%s': %s", path, strerror(errno));
-		unlink(tmp);
-		goto done;
-	}
-	rc = 0;
-done:
-	free(tmp);
-	return rc;
+	/* A temporary file put in place only once complete (io/safefile.h). */
+	if (sf_open(&sf, path, overwrite, e))
+		return -1;
+	return sf_finish(&sf, pwrite_ini(sf.fp, p, lib, comment, e), e);
 }

@@ -13,8 +13,8 @@
  * name the reader would read differently) with e filled. */
 int pwrite_ini(FILE *f, const struct sd_program *p, const struct sd_library *lib,
 	       const char *comment, struct sd_err *e);
-/* Writes to path through a temporary file renamed into place, so a failure leaves no half
- * file; refuses an existing file unless overwrite. */
+/* Writes to path through io/safefile.h: a failure leaves the old file as it was and no
+ * half file; refuses an existing file unless overwrite, and a symbolic link always. */
 int pwrite_file(const char *path, const struct sd_program *p, const struct sd_library *lib,
 		const char *comment, int overwrite, struct sd_err *e);
 

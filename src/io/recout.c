@@ -7,6 +7,7 @@
 #include <cjson/cJSON.h>
 
 #include "table.h"
+#include "jsonout.h"
 
 struct sd_rec {
 	int fmt, ncols;
@@ -98,7 +99,7 @@ void rec_print(const struct sd_rec *r, FILE *f)
 		tbl_print(r->t, f, r->fmt == REC_CSV);
 		return;
 	}
-	s = cJSON_Print(r->arr);
+	s = json_print(r->arr, 1);
 	if (s) {
 		fputs(s, f);
 		fputc('\n', f);
@@ -109,7 +110,7 @@ void rec_print(const struct sd_rec *r, FILE *f)
 void rec_print_json_object(const struct sd_rec *r, const char *key, FILE *f,
 			   const char *const *extra)
 {
-	char *s = r->arr ? cJSON_Print(r->arr) : NULL;
+	char *s = r->arr ? json_print(r->arr, 1) : NULL;
 
 	fputs("{\n", f);
 	for (int i = 0; extra && extra[i] && extra[i + 1]; i += 2)
@@ -139,7 +140,7 @@ void rec_free(struct sd_rec *r)
 char *rec_json_string(const char *s)
 {
 	cJSON *j = cJSON_CreateString(s);
-	char *out = j ? cJSON_PrintUnformatted(j) : NULL;
+	char *out = j ? json_print(j, 0) : NULL;
 
 	cJSON_Delete(j);
 	return out;

@@ -285,13 +285,31 @@ static void draw_chart(cairo_t *cr, const struct sd_chart *c, double x, double y
 	}
 }
 
-static int finish(cairo_surface_t *s, cairo_t *cr, const char *path, enum fmt fmt,
-		  struct sd_err *e)
+/* cairo writes through this; a failed write is recorded here as well as reported to cairo,
+ * because cairo does not report every failed write (the PDF's final flush). */
+struct stream {
+	chart_sink_fn sink;
+	void *closure;
+	int failed;
+};
+
+static cairo_status_t write_cb(void *closure, const unsigned char *data, unsigned int len)
+{
+	struct stream *out = closure;
+	if (out->failed || out->sink(out->closure, data, len)) {
+		out->failed = 1;
+		return CAIRO_STATUS_WRITE_ERROR;
+	}
+	return CAIRO_STATUS_SUCCESS;
+}
+
+static int finish(cairo_surface_t *s, cairo_t *cr, const char *name, enum fmt fmt,
+		  struct stream *out, struct sd_err *e)
 {
 	cairo_status_t st = cairo_status(cr);
 	cairo_destroy(cr);
 	if (!st && fmt == FMT_PNG)
-		st = cairo_surface_write_to_png(s, path);
+		st = cairo_surface_write_to_png_stream(s, write_cb, out);
 	cairo_surface_finish(s);
 	if (!st)
 		st = cairo_surface_status(s);
@@ -300,38 +318,51 @@ static int finish(cairo_surface_t *s, cairo_t *cr, const char *path, enum fmt fm
 	 * clean exit (a chart is drawn once per process). */
 	cairo_debug_reset_static_data();
 	FcFini();
+	if (out->failed)
+		return sd_fail(e, "cannot write '%s': the output could not be written", name);
 	if (st)
-		return sd_fail(e, "cannot write '%s': %s", path, cairo_status_to_string(st));
+		return sd_fail(e, "cannot write '%s': %s", name, cairo_status_to_string(st));
 	return 0;
 }
 
-static cairo_surface_t *surface(enum fmt fmt, const char *path, double w, double h)
+static cairo_surface_t *surface(enum fmt fmt, struct stream *out, double w, double h)
 {
 	switch (fmt) {
 	case FMT_PNG: return cairo_image_surface_create(CAIRO_FORMAT_RGB24, (int)w, (int)h);
-	case FMT_SVG: return cairo_svg_surface_create(path, w, h);
-	case FMT_PDF: return cairo_pdf_surface_create(path, w, h);
+	case FMT_SVG: return cairo_svg_surface_create_for_stream(write_cb, out, w, h);
+	case FMT_PDF: return cairo_pdf_surface_create_for_stream(write_cb, out, w, h);
 	default: return NULL;
 	}
 }
 
-int chart_write(const char *path, const struct sd_chart *c, struct sd_err *e)
+/* A surface ready to draw on, or -1 with e filled. */
+static int start(enum fmt fmt, const char *name, struct stream *out, double w, double h,
+		 cairo_surface_t **s, struct sd_err *e)
 {
-	enum fmt fmt = format_of(path);
+	*s = surface(fmt, out, w, h);
+	if (!*s || cairo_surface_status(*s)) {
+		cairo_status_t st = *s ? cairo_surface_status(*s) : CAIRO_STATUS_NO_MEMORY;
+		if (*s)
+			cairo_surface_destroy(*s);
+		return sd_fail(e, "cannot write '%s': %s", name, cairo_status_to_string(st));
+	}
+	return 0;
+}
+
+int chart_write(const char *name, const struct sd_chart *c, chart_sink_fn sink, void *closure,
+		struct sd_err *e)
+{
+	enum fmt fmt = format_of(name);
 	double w = 900, h = 572;
 	char buf[300];
+	struct stream out = { sink, closure, 0 };
 	cairo_surface_t *s;
 	cairo_t *cr;
 
 	if (fmt == FMT_NONE)
-		return sd_usage(e, "cannot tell the chart format of '%s': name it .png, .svg or .pdf", path);
-	s = surface(fmt, path, w, h);
-	if (!s || cairo_surface_status(s)) {
-		cairo_status_t st = s ? cairo_surface_status(s) : CAIRO_STATUS_NO_MEMORY;
-		if (s)
-			cairo_surface_destroy(s);
-		return sd_fail(e, "cannot write '%s': %s", path, cairo_status_to_string(st));
-	}
+		return sd_usage(e, "cannot tell the chart format of '%s': name it .png, .svg or .pdf", name);
+	if (start(fmt, name, &out, w, h, &s, e))
+		return -1;
 	cr = cairo_create(s);
 	cairo_set_source_rgb(cr, 1, 1, 1);
 	cairo_paint(cr);
@@ -340,7 +371,7 @@ int chart_write(const char *path, const struct sd_chart *c, struct sd_err *e)
 	profile_oneline(c->prof, buf, sizeof buf);
 	text(cr, 16, h - 22, 8.5, 0, 0, buf);
 	text(cr, 16, h - 10, 8.5, 0, 0, aout_caution);
-	return finish(s, cr, path, fmt, e);
+	return finish(s, cr, name, fmt, &out, e);
 }
 
 /* Wraps s at about `width` points on word boundaries; returns the y below the last line. */
@@ -448,20 +479,18 @@ static void report_page(cairo_t *cr, const struct sd_audit_info *in, double w)
 	para(cr, 40, 802, w - 80, 8, aout_caution);
 }
 
-int report_write(const char *path, const struct sd_audit_info *in, int n, struct sd_err *e)
+int report_write(const char *name, const struct sd_audit_info *in, int n, chart_sink_fn sink,
+		 void *closure, struct sd_err *e)
 {
 	double w = 595.276, h = 841.89;  /* A4 in points */
+	struct stream out = { sink, closure, 0 };
 	cairo_surface_t *s;
 	cairo_t *cr;
 
-	if (format_of(path) != FMT_PDF)
-		return sd_usage(e, "the report is a PDF: name it .pdf, not '%s'", path);
-	s = cairo_pdf_surface_create(path, w, h);
-	if (cairo_surface_status(s)) {
-		cairo_status_t st = cairo_surface_status(s);
-		cairo_surface_destroy(s);
-		return sd_fail(e, "cannot write '%s': %s", path, cairo_status_to_string(st));
-	}
+	if (format_of(name) != FMT_PDF)
+		return sd_usage(e, "the report is a PDF: name it .pdf, not '%s'", name);
+	if (start(FMT_PDF, name, &out, w, h, &s, e))
+		return -1;
 	cr = cairo_create(s);
 	for (int i = 0; i < n; i++) {
 		cairo_set_source_rgb(cr, 1, 1, 1);
@@ -469,5 +498,5 @@ int report_write(const char *path, const struct sd_audit_info *in, int n, struct
 		report_page(cr, &in[i], w);
 		cairo_show_page(cr);
 	}
-	return finish(s, cr, path, FMT_PDF, e);
+	return finish(s, cr, name, FMT_PDF, &out, e);
 }

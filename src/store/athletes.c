@@ -4,6 +4,8 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "../core/text.h"
+
 #define ATHLETE_COLS "id, name, status, units, notes, created"
 
 static void row_athlete(sqlite3_stmt *st, struct db_athlete *a)
@@ -26,6 +28,15 @@ static int bind_athlete(sqlite3_stmt *st, const struct db_athlete *a)
 	sqlite3_bind_text(st, 2, a->trained ? "trained" : "untrained", -1, SQLITE_STATIC);
 	sqlite3_bind_text(st, 3, a->units_lb ? "lb" : "kg", -1, SQLITE_STATIC);
 	return sqlite3_bind_text(st, 4, a->notes, -1, SQLITE_TRANSIENT);
+}
+
+/* Name and notes are text setdose can store and show (core/text.h). */
+static int check_texts(const struct db_athlete *a, struct sd_err *e)
+{
+	if (text_check("athlete name", a->name, strlen(a->name), e) ||
+	    text_check("athlete notes", a->notes, strlen(a->notes), e))
+		return -1;
+	return 0;
 }
 
 /* Name taken by an athlete other than `self`? */
@@ -56,7 +67,7 @@ int db_athlete_add(struct sd_db *db, const struct db_athlete *a, long long *id, 
 	sqlite3_stmt *st = NULL;
 	int ret = -1;
 
-	if (name_taken(db, a->name, -1, e))
+	if (check_texts(a, e) || name_taken(db, a->name, -1, e))
 		return -1;
 	if (dbi_prepare(db, "INSERT INTO athletes (name, status, units, notes) "
 			    "VALUES (?1, ?2, ?3, ?4)", &st, e))
@@ -99,7 +110,7 @@ int db_athlete_update(struct sd_db *db, const struct db_athlete *a, struct sd_er
 	sqlite3_stmt *st = NULL;
 	int ret = -1;
 
-	if (name_taken(db, a->name, a->id, e))
+	if (check_texts(a, e) || name_taken(db, a->name, a->id, e))
 		return -1;
 	if (dbi_prepare(db, "UPDATE athletes SET name = ?1, status = ?2, units = ?3, notes = ?4 "
 			    "WHERE id = ?5", &st, e))

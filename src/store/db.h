@@ -64,8 +64,11 @@ struct db_test {
  * returned (a callback that fails fills its own error). */
 typedef int (*db_block_fn)(const struct db_block *b, void *arg);
 
-/* Opens (creating the folder and the file on first use) and migrates the database at path,
- * with foreign keys on, WAL journal and a busy timeout. ":memory:" works for tests. */
+/* Opens the database at path: a new file (and its folder) is created read-write and migrated;
+ * an existing one is opened read-only (so reading works on a read-only file or folder) and
+ * reopened read-write by the first db_begin. Where the folder cannot hold SQLite's WAL index
+ * the file is read through a checked in-memory snapshot (see db.c). Foreign keys on, WAL
+ * journal, a busy timeout. ":memory:" works for tests. */
 int db_open(const char *path, struct sd_db **out, struct sd_err *e);
 /* Closes; rolls back an unfinished transaction. NULL is a no-op. */
 void db_close(struct sd_db *db);
@@ -78,7 +81,9 @@ const char *db_path(const struct sd_db *db);
 int db_schema_version(struct sd_db *db);
 int db_schema_latest(void);
 
-/* One write transaction (taken at once, waiting out other writers up to the busy timeout). */
+/* One write transaction (taken at once, waiting out other writers up to the busy timeout).
+ * Reopens a read-only connection read-write, and refuses a damaged database (PRAGMA
+ * quick_check) before anything is written. */
 int db_begin(struct sd_db *db, struct sd_err *e);
 int db_commit(struct sd_db *db, struct sd_err *e);
 /* Rolls back the open transaction, if any. */
@@ -87,9 +92,26 @@ void db_rollback(struct sd_db *db);
 /* PRAGMA integrity_check and foreign_key_check: 0 when both pass; otherwise -1 with the
  * first problems in e. *problems (may be NULL) gets how many rows they reported. */
 int db_check(struct sd_db *db, int *problems, struct sd_err *e);
-/* Copies the open database to a new file with the online backup API. Refuses an existing
- * file unless overwrite. */
-int db_backup(struct sd_db *db, const char *dest, int overwrite, struct sd_err *e);
+/* Copies the open database with the online backup API into dest, an empty file the caller
+ * made (io/safefile.h's temporary file, renamed into place only after this succeeds), then
+ * checks the copy (integrity_check, foreign_key_check) and fails if it does not pass. `label`
+ * names the target in messages. */
+int db_backup(struct sd_db *db, const char *dest, const char *label, struct sd_err *e);
+/* Copies every row that can still be read from the (damaged) database at src into dest, an
+ * empty file the caller made, under the current schema; rows whose parent row was lost or
+ * that break a constraint are left out and counted. The copy is checked like a backup.
+ * Never writes to src. */
+struct db_recovery {
+	int tables;                 /* tables copied */
+	long long rows, dropped;    /* rows copied; rows read but left out */
+	int damaged;                /* damaged regions skipped while reading */
+	char detail[400];           /* "athletes 8, programs 3, ..." */
+};
+int db_recover(const char *src, const char *dest, const char *label, struct db_recovery *r,
+	       struct sd_err *e);
+/* Takes a new snapshot of a database read through a snapshot (read-only folder); a no-op
+ * for a live connection, which sees other processes' commits at its next read. */
+int db_refresh(struct sd_db *db, struct sd_err *e);
 
 /* Athletes. Names are unique, compared case-insensitively (ASCII). */
 int db_athlete_add(struct sd_db *db, const struct db_athlete *a, long long *id, struct sd_err *e);

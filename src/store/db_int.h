@@ -9,6 +9,8 @@
 struct sd_db {
 	sqlite3 *h;
 	char path[4096];
+	int rw;          /* opened read-write; a read-only connection is reopened by db_begin */
+	int snapshot;    /* an in-memory copy of a database whose folder cannot be written */
 };
 
 /* Prepares sql (a constant; values are always bound, never pasted in). */
@@ -30,6 +32,11 @@ typedef int (*dbi_row_fn)(sqlite3_stmt *st, void *rec, struct sd_err *e);
  * *out (free it) and *n are set. `what` names the read in an error ("read athletes"). */
 int dbi_collect(struct sd_db *db, sqlite3_stmt *st, size_t size, dbi_row_fn fn, void **out,
 		int *n, const char *what, struct sd_err *e);
+/* Opens db->path read-only (a snapshot where the folder cannot hold the WAL index). */
+int dbi_open_ro(struct sd_db *db, struct sd_err *e);
+/* Checks a finished copy at path (integrity_check, foreign_key_check) without creating
+ * files beside it: 0 when it passes, else -1 with the first problems in msg. */
+int dbi_check_copy(const char *path, char *msg, size_t n);
 /* Applies the embedded migrations (migrate.c). */
 int dbi_migrate(struct sd_db *db, struct sd_err *e);
 

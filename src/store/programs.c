@@ -4,6 +4,8 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "../core/text.h"
+
 int db_program_add(struct sd_db *db, const char *name, const char *src, size_t len, int is_csv,
 		   long long *id, struct sd_err *e)
 {
@@ -11,6 +13,8 @@ int db_program_add(struct sd_db *db, const char *name, const char *src, size_t l
 	long long taken;
 	int ret = -1;
 
+	if (text_check("program name", name, strlen(name), e))
+		return -1;
 	if (len > 0x7fffffff)
 		return sd_fail(e, "program '%s' is too large", name);
 	if (dbi_prepare(db, "SELECT count(*) FROM programs WHERE name = ?1", &st, e))

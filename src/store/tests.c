@@ -4,11 +4,15 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "../core/text.h"
+
 int db_test_add(struct sd_db *db, const struct db_test *t, long long *id, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
 	int ret = -1;
 
+	if (text_check("lift name", t->lift, strlen(t->lift), e))
+		return -1;
 	if (dbi_prepare(db, "INSERT INTO tests (athlete_id, lift, test_date, load_kg, reps, "
 			    "e1rm_kg, formula) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7)", &st, e))
 		goto done;

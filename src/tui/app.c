@@ -23,7 +23,7 @@ const struct tui_bind tui_global_keys[] = {
 	{ { 27, KEY_BACKSPACE, 127 }, G_BACK, "Esc Backspace", "back to the view before; Esc on the "
 	  "roster leaves" },
 	{ { KEY_F(10) }, G_QUIT, "F10", "leave setdose (Ctrl-C too)" },
-	{ { 12 }, G_REDRAW, "Ctrl-L", "repaint the screen" },
+	{ { 12 }, G_REDRAW, "Ctrl-L", "reload what other programs changed; repaint" },
 	{ { 0 }, G_MOVE, "Up Down", "move in lists; PgUp PgDn Home End go further" },
 	{ { 0 }, 0, NULL, NULL },
 };
@@ -172,11 +172,13 @@ static void draw_title(struct tui_app *a)
 		snprintf(crumbs + strlen(crumbs), sizeof crumbs - strlen(crumbs), "%s%s",
 			 i ? (a->unicode ? " \u203a " : " > ") : "", name);
 	}
-	/* The profile's name on the right when there is room for it beside the way here. */
+	/* The profile's name on the right when there is room for it beside the way here; the
+	 * way here ends (with an ellipsis when cut) two columns before it. */
 	right = tui_width(a->ctx->profile.name) + 10;
 	if (COLS < right + 40)
 		right = 0;
-	tui_putf(0, 0, COLS - right, TR_TITLE, " setdose %s %s", a->unicode ? "\u2502" : "|", crumbs);
+	tui_putf(0, 0, COLS - right - (right ? 2 : 0), TR_TITLE, " setdose %s %s",
+		 a->unicode ? "\u2502" : "|", crumbs);
 	if (right)
 		tui_putf(0, COLS - right, right, TR_TITLE, "profile %s ", a->ctx->profile.name);
 }
@@ -311,6 +313,7 @@ static void handle_key(struct tui_app *a, int ch)
 		a->quit = 1;
 		break;
 	case G_REDRAW:
+		tui_reload(a);
 		clearok(curscr, TRUE);
 		break;
 	case G_BACK:

@@ -125,6 +125,10 @@ struct tui_app {
 /* app.c */
 /* Sets the status line (err != 0: shown as an error). */
 void tui_say(struct tui_app *a, int err, const char *fmt, ...) __attribute__((format(printf, 3, 4)));
+/* Reloads the roster, the templates and the athlete page from the database (after a write
+ * here, or Ctrl-L for changes made by another program), keeping the athlete page's athlete
+ * when it still exists. */
+void tui_reload(struct tui_app *a);
 /* Opens a view over the current one, running its init. */
 void tui_open(struct tui_app *a, enum tui_view v);
 /* The view currently showing. */

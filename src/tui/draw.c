@@ -87,8 +87,9 @@ unsigned tui_attr(enum tui_role r)
 
 /* Copies s into buf, replacing what the terminal cannot show in one cell (control
  * characters, and any non-ASCII byte outside a UTF-8 locale) by '?', and stops at w columns.
- * Returns the columns used. */
-static int fit(const char *s, int w, char *buf, size_t n)
+ * Returns the columns used; *cut is set when some of s (other than trailing blanks) did not
+ * fit. */
+static int fit(const char *s, int w, char *buf, size_t n, int *cut)
 {
 	size_t o = 0;
 	int cols = 0;
@@ -124,25 +125,35 @@ static int fit(const char *s, int w, char *buf, size_t n)
 		cols += cw;
 	}
 	buf[o] = '\0';
+	/* Padding that does not fit is not text cut short. */
+	*cut = s[strspn(s, " ")] != '\0';
 	return cols;
 }
 
 int tui_width(const char *s)
 {
 	char buf[1024];
-	return fit(s, 1 << 20, buf, sizeof buf);
+	int cut;
+	return fit(s, 1 << 20, buf, sizeof buf, &cut);
 }
 
 int tui_put(int y, int x, int w, enum tui_role r, const char *s)
 {
 	char buf[2048];
-	int cols;
+	int cols, cut;
 
 	if (y < 0 || y >= LINES || x < 0 || x >= COLS || w <= 0)
 		return 0;
 	if (x + w > COLS)
 		w = COLS - x;
-	cols = fit(s, w, buf, sizeof buf);
+	cols = fit(s, w, buf, sizeof buf, &cut);
+	/* Text cut short ends in an ellipsis, so two long names that share a beginning do not
+	 * look the same. */
+	if (cut && w >= 2) {
+		cols = fit(s, w - 1, buf, sizeof buf - 4, &cut);
+		strcat(buf, utf8 ? "\u2026" : "~");
+		cols++;
+	}
 	attrset(role_attr[r]);
 	mvaddstr(y, x, buf);
 	attrset(A_NORMAL);

@@ -108,13 +108,12 @@ void tui_form_open_test(struct tui_app *a)
 	tui_overlay_open(&a->st, TUI_OV_FORM);
 }
 
-/* Reloads what a write may have changed, keeping the athlete page's athlete when it still
- * exists. */
-static void reload(struct tui_app *a)
+void tui_reload(struct tui_app *a)
 {
 	struct sd_err e;
 	sd_err_clear(&e);
-	if (tui_load_athletes(a, &e) || tui_load_programs(a, &e)) {
+	/* A database read through a snapshot (a read-only folder) takes a new one. */
+	if (db_refresh(a->ctx->db, &e) || tui_load_athletes(a, &e) || tui_load_programs(a, &e)) {
 		tui_say(a, 1, "%s", e.msg);
 		return;
 	}
@@ -155,7 +154,7 @@ static int save_athlete(struct tui_app *a, struct sd_err *e)
 	if (f->kind == TUI_FORM_ATHLETE_EDIT ? WRITE(a, e, db_athlete_update(a->ctx->db, &at, e))
 					      : WRITE(a, e, db_athlete_add(a->ctx->db, &at, &id, e)))
 		return FA_NAME;
-	reload(a);
+	tui_reload(a);
 	/* Show the athlete on the roster: clear a search that would hide it. */
 	if (!tui_filter_match(&a->st.search, at.name)) {
 		tui_filter_clear(&a->st.search);
@@ -211,7 +210,7 @@ static int save_block(struct tui_app *a, struct sd_err *e)
 	prog_free(&prog);
 	db_program_free(&p);
 	if (bad < 0)
-		reload(a);
+		tui_reload(a);
 	return bad;
 }
 
@@ -250,7 +249,7 @@ static int save_test(struct tui_app *a, struct sd_err *e)
 		return bad;
 	if (WRITE(a, e, db_test_add(a->ctx->db, &t, &t.id, e)))
 		return FT_LIFT;
-	reload(a);
+	tui_reload(a);
 	tui_say(a, 0, "logged test %lld: %s %.1f %s x %d on %s; 1RM %.1f %s (%s)%s", t.id, t.lift,
 		units_show(t.load_kg, lb), units_name(lb), t.reps, t.date, units_show(t.e1rm_kg, lb),
 		units_name(lb), t.formula, warn ? "; above 10 reps the estimate loses accuracy" : "");
@@ -434,7 +433,7 @@ void tui_confirm_key(struct tui_app *a, int ch)
 			a->have_athlete = 0;
 			tui_nav_reset(&a->st.nav, TUI_ROSTER);
 		}
-		reload(a);
+		tui_reload(a);
 		tui_say(a, 0, "removed the athlete with their blocks and tests");
 		break;
 	case TUI_ASK_END_BLOCK:
@@ -443,7 +442,7 @@ void tui_confirm_key(struct tui_app *a, int ch)
 			tui_say(a, 1, "%s; nothing changed", e.msg);
 			return;
 		}
-		reload(a);
+		tui_reload(a);
 		tui_say(a, 0, "block %lld finished on %s", a->end_block, today);
 		break;
 	case TUI_ASK_EDIT_AGAIN:
@@ -646,6 +645,6 @@ static int save_template(struct tui_app *a, struct sd_err *e)
 	}
 	tui_say(a, 0, "stored template '%s'", name);
 	tui_edit_free(a);
-	reload(a);
+	tui_reload(a);
 	return -1;
 }

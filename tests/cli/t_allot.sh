@@ -88,7 +88,7 @@ assert sum(s["sets"] for s in a["sessions"]) == 24
 assert abs(sum(s["fatigue"] for s in a["sessions"]) - a["allotment"]["fatigue"]) < 0.02
 PY
 lines err 0
-run 2 "$SD" allot --budget 24 --write plan.ini
+run 1 "$SD" allot --budget 24 --write plan.ini
 has err "^setdose: 'plan\.ini' exists; choose another file or add --force$"
 run 0 "$SD" allot --budget 12 --write plan.ini --force
 run 0 "$SD" audit plan.ini

@@ -33,4 +33,4 @@ printf '[a]\nbench pres = 3\n' >bad.ini
 run 1 "$SD" report --out bad.pdf "$P/demo-minimal2.ini" bad.ini
 check "no report written on bad input" test ! -e bad.pdf
 run 1 "$SD" chart --out /nonexistent/dir/c.png
-has err "cannot write '/nonexistent/dir/c.png'"
+has err "^setdose: folder '/nonexistent/dir' does not exist$"

@@ -114,7 +114,7 @@ run 0 "$SD" --db "$TMP/backup.db" db check
 run 0 "$SD" --db "$TMP/backup.db" athlete list
 check "backup holds the athletes" test "$(grep -c 'Rhea Tamsin\|Cole Ardent\|Pia Lund' "$TMP/out")" -eq 3
 run 1 "$SD" db backup "$TMP/backup.db"
-has err "already exists \(use --force"
+has err "exists; choose another file or add --force"
 run 0 "$SD" db backup "$TMP/backup.db" --force
 
 # Removal: refused while referenced, then --cascade; asking needs a terminal or --yes.
