@@ -98,7 +98,7 @@ unit: $(TBIN)
 
 cli: $(B)/setdose
 	@mkdir -p $(dir $(RESULTS))
-	@sh tests/cli/run.sh $(RESULTS) $(CURDIR)/$(B)/setdose
+	@sh tests/cli/run.sh $(RESULTS) $(CURDIR)/$(B)/setdose $(T)
 
 tui-test: $(B)/setdose
 	@mkdir -p $(dir $(RESULTS))

@@ -1,11 +1,14 @@
 #!/bin/sh
 # Runs every tests/cli/t_*.sh against one setdose binary, each in its own scratch folder
 # with its own database and no user configuration.
-RESULTS=$1; SD=$2
+# A third argument runs one test file alone: `sh tests/cli/run.sh RESULTS SD t_audit`
+# (`make cli T=t_audit` does the same).
+RESULTS=$1; SD=$2; ONLY=${3:-}
 ROOT=$(cd "$(dirname "$0")/../.." && pwd)
 export RESULTS SD ROOT
 fail=0
 for t in "$ROOT"/tests/cli/t_*.sh; do
+	[ -z "$ONLY" ] || [ "$(basename "$t" .sh)" = "${ONLY%.sh}" ] || continue
 	TMP=$(mktemp -d)
 	T=$(basename "$t" .sh)
 	before=$(grep -c ' failed$' "$RESULTS" 2>/dev/null || true)
