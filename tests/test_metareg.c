@@ -670,6 +670,36 @@ static void test_eval_memo(void **state)
 	eft_free(&t);
 }
 
+/* Extra starts only on a reason: the well-curved interior maxima of the 200-study data need
+ * none (nor the quasi-Newton stage); boundary estimates (test_boundary's data) get them. */
+static void test_start_logic(void **state)
+{
+	struct ef_table t;
+	struct ef_model m;
+	(void)state;
+	for (int slopes = 0; slopes < 2; slopes++) {
+		struct ef_spec sp = sim_spec(SD_FORM_RECIPROCAL, slopes);
+		load("tests/bench/bench_big200_effects.csv", &sp, &t, &m);
+		struct mr_fit f = fit_or_fail(&m.d, MR_REML);
+		assert_int_equal(f.iter_bfgs, 0);
+		assert_true(f.iter_newton <= 6);
+		if (!slopes)
+			assert_int_equal(f.starts, 0);
+		ef_model_free(&m);
+		eft_free(&t);
+	}
+	double y[8] = { 0.10, 0.11, 0.10, 0.09, 0.10, 0.11, 0.09, 0.10 }, v[8], X[8];
+	int s[8] = { 1, 1, 2, 2, 3, 3, 4, 4 }, ef[8] = { 1, 2, 3, 4, 5, 6, 7, 8 };
+	for (int i = 0; i < 8; i++) {
+		v[i] = 0.01;
+		X[i] = 1;
+	}
+	struct mr_data d = { 8, 1, y, v, X, s, ef, -1, NULL };
+	struct mr_fit f = fit_or_fail(&d, MR_REML);
+	assert_true(f.tau2_zero && f.sigma2_zero);
+	assert_true(f.starts > 0);
+}
+
 /* Leave-one-study-out with warm starts equals refitting each reduced data set from scratch. */
 static void test_loso(void **state)
 {
@@ -1044,6 +1074,7 @@ int main(void)
 		cmocka_unit_test(test_general_slopes),
 		cmocka_unit_test(test_closed_form_derivatives),
 		cmocka_unit_test(test_eval_memo),
+		cmocka_unit_test(test_start_logic),
 		cmocka_unit_test(test_loso),
 		cmocka_unit_test(test_one_study),
 		cmocka_unit_test(test_constant_dose),

@@ -138,14 +138,17 @@ struct mr_conv {
 	double decrement, loglik;
 	int zero[MR_MAXK];       /* variance k estimated on its boundary, exactly 0 */
 	int rho_bound;           /* slope correlation exactly +-1 (G of rank 1) */
+	int flat;                /* curvature at the maximum flat or not negative definite */
+	double drop[MR_MAXK];    /* quadratic model's log-likelihood drop to variance k's boundary */
 };
-/* Maximises the (restricted) likelihood over theta, in place (theta holds the start). With
- * warm set, Newton steps start from theta directly (falling back to the full search when they
- * fail). Returns -1 only when the likelihood cannot be evaluated at all; a fit that
+/* Maximises the (restricted) likelihood over theta, in place (theta holds the start): Newton
+ * steps, with a quasi-Newton search first only when they do not converge, and extra starts
+ * when the result gives a reason (mr_opt.c). With warm set, no extra starts unless the Newton
+ * steps fail. Returns -1 only when the likelihood cannot be evaluated at all; a fit that
  * did not converge returns 0 with c->converged 0. */
 int mr_optimise(struct mr_work *w, int reml, int max_iter, int warm, double *theta,
 		struct mr_conv *c, struct sd_err *e);
-/* A starting point: a moment estimate of the total heterogeneity split between the levels. */
+/* A starting point: method-of-moments estimates of each variance (mr_start.c). */
 void mr_start(struct mr_work *w, double *theta);
 
 #endif

@@ -1,6 +1,6 @@
 /* The data of a meta-regression grouped by study: block order, copies of the rows, each
- * block's effect-level groups, the checks that the model can be fitted at all, and starting
- * values. The likelihood itself is in mr_lik.c and mr_cs.c. */
+ * block's effect-level groups and the checks that the model can be fitted at all. The
+ * likelihood itself is in mr_lik.c and mr_cs.c, the starting values in mr_start.c. */
 #include "mr_lik.h"
 
 #include <math.h>
@@ -382,73 +382,4 @@ void mr_work_view(const struct mr_work *w, int b, struct mr_blockview *out)
 	out->WX = w->WX + (size_t)s * p;
 	out->W = w->W + w->loff[b];
 	out->q = w->q + s;
-}
-
-static double trace_prod(const double *A, const double *B, int p)   /* tr(A B) */
-{
-	double t = 0;
-	for (int i = 0; i < p; i++)
-		for (int j = 0; j < p; j++)
-			t += A[i * p + j] * B[j * p + i];
-	return t;
-}
-
-void mr_start(struct mr_work *w, double *theta)
-{
-	int p = w->p, K = w->nk, n = w->n_act;
-	double xtx[MR_MAXP * MR_MAXP] = {0}, xty[MR_MAXP] = {0}, x2[MR_MAXP * MR_MAXP] = {0};
-	double beta[MR_MAXP], sw = 0, q = 0, fm = 0, f2 = 0;
-
-	/* Fixed-effect weighted least squares, then Q and tr(P0): the method-of-moments estimate
-	 * of DerSimonian & Laird (1986) in its meta-regression form, only as a starting point. */
-	for (int b = 0; b < w->nb; b++) {
-		if (b == w->excl)
-			continue;
-		for (int i = w->bstart[b]; i < w->bstart[b] + w->blen[b]; i++) {
-			const double *x = w->X + (size_t)i * p;
-			double wi = w->iv[i];
-			sw += wi;
-			fm += w->f[i];
-			f2 += w->f[i] * w->f[i];
-			for (int j = 0; j < p; j++) {
-				xty[j] += wi * x[j] * w->y[i];
-				for (int k = 0; k < p; k++) {
-					xtx[j * p + k] += wi * x[j] * x[k];
-					x2[j * p + k] += wi * wi * x[j] * x[k];
-				}
-			}
-		}
-	}
-	double tot = 0.1 * w->vscale;
-	gsl_matrix_view A = gsl_matrix_view_array(xtx, p, p);
-	gsl_vector_view bv = gsl_vector_view_array(beta, p);
-	gsl_vector_view yv = gsl_vector_view_array(xty, p);
-	if (!gsl_linalg_cholesky_decomp1(&A.matrix) &&
-	    !gsl_linalg_cholesky_solve(&A.matrix, &yv.vector, &bv.vector) &&
-	    !gsl_linalg_cholesky_invert(&A.matrix)) {
-		for (int b = 0; b < w->nb; b++) {
-			if (b == w->excl)
-				continue;
-			for (int i = w->bstart[b]; i < w->bstart[b] + w->blen[b]; i++) {
-				double r = w->y[i];
-				for (int j = 0; j < p; j++)
-					r -= w->X[(size_t)i * p + j] * beta[j];
-				q += r * r / w->v[i];
-			}
-		}
-		double trp = sw - trace_prod(xtx, x2, p);
-		if (trp > 0 && (q - (n - p)) / trp > tot)
-			tot = (q - (n - p)) / trp;
-	}
-	int nlev = 1 + (w->d->effect != NULL);
-	fm /= n;
-	double fvar = f2 / n - fm * fm;
-	for (int k = 0; k < K; k++) {
-		switch (w->kind[k]) {
-		case MR_K_TAU2: theta[k] = tot / nlev / (w->d->slope_col >= 0 ? 2 : 1); break;
-		case MR_K_COV: theta[k] = 0; break;
-		case MR_K_SLOPE: theta[k] = tot / nlev / 2 / (fvar > 0 ? fvar : 1); break;
-		case MR_K_SIGMA2: theta[k] = tot / nlev; break;
-		}
-	}
 }
