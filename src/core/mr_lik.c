@@ -283,28 +283,14 @@ MR_INLINE void derivs_p(struct mr_work *w, int b, const double *C, int hess, str
 static int gen_factor(struct mr_work *w, int b, const double *theta, double *xtwx, double *xtwy,
 		      struct mr_ldet *ld)
 {
-	switch (w->p) {
-	case 1: return factor_p(w, b, theta, xtwx, xtwy, ld, 1);
-	case 2: return factor_p(w, b, theta, xtwx, xtwy, ld, 2);
-	case 3: return factor_p(w, b, theta, xtwx, xtwy, ld, 3);
-	case 4: return factor_p(w, b, theta, xtwx, xtwy, ld, 4);
-	case 5: return factor_p(w, b, theta, xtwx, xtwy, ld, 5);
-	case 6: return factor_p(w, b, theta, xtwx, xtwy, ld, 6);
-	default: return factor_p(w, b, theta, xtwx, xtwy, ld, w->p);
-	}
+	int ret;
+	MR_WITH_P(w->p, ret = factor_p(w, b, theta, xtwx, xtwy, ld, P));
+	return ret;
 }
 
 static void gen_derivs(struct mr_work *w, int b, const double *C, int hess, struct mr_sums *S)
 {
-	switch (w->p) {
-	case 1: derivs_p(w, b, C, hess, S, 1); break;
-	case 2: derivs_p(w, b, C, hess, S, 2); break;
-	case 3: derivs_p(w, b, C, hess, S, 3); break;
-	case 4: derivs_p(w, b, C, hess, S, 4); break;
-	case 5: derivs_p(w, b, C, hess, S, 5); break;
-	case 6: derivs_p(w, b, C, hess, S, 6); break;
-	default: derivs_p(w, b, C, hess, S, w->p); break;
-	}
+	MR_WITH_P(w->p, derivs_p(w, b, C, hess, S, P));
 }
 
 static void derivatives(struct mr_work *w, int reml, int hess, struct mr_eval *out);

@@ -11,6 +11,18 @@
 
 /* For the per-block kernels: inlined with constant sizes, so their short loops unroll. */
 #define MR_INLINE static inline __attribute__((always_inline))
+/* Runs STMT with P the column count p: a compile-time constant for p <= 6, p itself beyond. */
+#define MR_WITH_P(p, STMT) do {                                                       \
+	switch (p) {                                                                  \
+	case 1: { enum { P = 1 }; STMT; } break;                                      \
+	case 2: { enum { P = 2 }; STMT; } break;                                      \
+	case 3: { enum { P = 3 }; STMT; } break;                                      \
+	case 4: { enum { P = 4 }; STMT; } break;                                      \
+	case 5: { enum { P = 5 }; STMT; } break;                                      \
+	case 6: { enum { P = 6 }; STMT; } break;                                      \
+	default: { const int P = (p); STMT; } break;                                  \
+	}                                                                             \
+} while (0)
 
 enum mr_kind { MR_K_TAU2, MR_K_COV, MR_K_SLOPE, MR_K_SIGMA2 };
 
