@@ -350,6 +350,34 @@ static void test_big200(void **state)
 	}
 }
 
+/* The analytic score and observed Hessian at th against central differences (step h) of the
+ * likelihood and of the score. A step that leaves the positive-definite set is skipped only
+ * when skip is set. */
+static void check_fd(struct mr_work *w, const double *th, int reml, double h, int skip)
+{
+	struct mr_eval ev, a, b;
+	int K = mr_work_nvc(w);
+	assert_int_equal(mr_work_eval(w, th, reml, MR_WANT_HESS, &ev), 0);
+	for (int k = 0; k < K; k++) {
+		double tp[MR_MAXK], tm[MR_MAXK];
+		memcpy(tp, th, sizeof tp);
+		memcpy(tm, th, sizeof tm);
+		tp[k] += h;
+		tm[k] -= h;
+		int bad = mr_work_eval(w, tp, reml, MR_WANT_GRAD, &a) ||
+			  mr_work_eval(w, tm, reml, MR_WANT_GRAD, &b);
+		if (bad && skip)
+			continue;
+		assert_false(bad);
+		double num = (a.ll - b.ll) / (2 * h);
+		assert_near(ev.g[k], num, 1e-4 * (1 + fabs(num)));
+		for (int l = 0; l < K; l++) {
+			double nh = (a.g[l] - b.g[l]) / (2 * h);
+			assert_near(ev.H[l * K + k], nh, 1e-4 * (1 + fabs(nh)));
+		}
+	}
+}
+
 /* The analytic score and observed Hessian against central differences of the likelihood
  * (and of the score), for each random structure and both criteria. */
 static void test_derivatives(void **state)
@@ -361,34 +389,293 @@ static void test_derivatives(void **state)
 			struct ef_table t;
 			struct ef_model m;
 			struct sd_err e = { 0 };
-			struct mr_eval ev, a, b;
 			load(REF "sim_reciprocal_effects.csv", &sp, &t, &m);
 			struct mr_work *w = mr_work_new(&m.d, &e);
 			assert_non_null(w);
-			int K = mr_work_nvc(w);
 			double th[MR_MAXK] = { 0.0015, 0.0004, 0.002, 0.001 };
 			if (!slopes)
 				th[1] = 0.001;
-			assert_int_equal(mr_work_eval(w, th, reml, MR_WANT_HESS, &ev), 0);
-			for (int k = 0; k < K; k++) {
-				double h = 1e-7, tp[MR_MAXK], tm[MR_MAXK];
-				memcpy(tp, th, sizeof tp);
-				memcpy(tm, th, sizeof tm);
-				tp[k] += h;
-				tm[k] -= h;
-				assert_int_equal(mr_work_eval(w, tp, reml, MR_WANT_GRAD, &a), 0);
-				assert_int_equal(mr_work_eval(w, tm, reml, MR_WANT_GRAD, &b), 0);
-				double num = (a.ll - b.ll) / (2 * h);
-				assert_near(ev.g[k], num, 1e-4 * (1 + fabs(num)));
-				for (int l = 0; l < K; l++) {
-					double nh = (a.g[l] - b.g[l]) / (2 * h);
-					assert_near(ev.H[l * K + k], nh, 1e-4 * (1 + fabs(nh)));
-				}
-			}
+			check_fd(w, th, reml, 1e-7, 0);
 			mr_work_free(w);
 			ef_model_free(&m);
 			eft_free(&t);
 		}
+}
+
+/* ---- the likelihood computations against each other on random blocks ---- */
+
+/* A random data set (invented, for these checks only): studies of 1 to 5 rows, X = [1, dose
+ * term, p - 2 normal moderators], effect ids absent (mode 0), one per row (1) or shared by
+ * consecutive rows of a study (2). */
+struct rdata {
+	int n, nstudy, p;
+	double y[120], v[120], X[120 * 8];
+	int study[120], effect[120];
+	struct mr_data d;
+};
+
+static void random_data(gsl_rng *rng, int mode, int slopes, int p, struct rdata *r)
+{
+	int n = 0, eff = 0;
+	r->p = p;
+	r->nstudy = 6 + (int)gsl_rng_uniform_int(rng, 10);
+	for (int s = 0; s < r->nstudy; s++) {
+		int m = 1 + (int)gsl_rng_uniform_int(rng, 5);
+		if (s < 2 && m < 3)
+			m = 3;                  /* the effect level and slopes need studies with >= 2 */
+		double u0 = gsl_ran_gaussian(rng, 0.1), u1 = gsl_ran_gaussian(rng, 0.2);
+		for (int a = 0; a < m; a++, n++) {
+			double f = 1.0 / (1 + (int)gsl_rng_uniform_int(rng, 12));
+			r->X[p * n] = 1;
+			r->X[p * n + 1] = f;
+			for (int j = 2; j < p; j++)
+				r->X[p * n + j] = gsl_ran_gaussian(rng, 1);
+			r->v[n] = 0.005 + 0.02 * gsl_rng_uniform(rng);
+			r->y[n] = 0.2 - 0.3 * f + u0 + u1 * f + gsl_ran_gaussian(rng, 0.1);
+			r->study[n] = 100 - s;  /* ids out of order: the blocks are sorted */
+			if (mode == 2 && a > 0 && gsl_rng_uniform(rng) < 0.4)
+				r->effect[n] = eff;    /* shares the previous row's group */
+			else
+				r->effect[n] = ++eff;
+		}
+	}
+	r->n = n;
+	struct mr_data d = { n, p, r->y, r->v, r->X, r->study, mode ? r->effect : NULL,
+			     slopes ? 1 : -1, NULL };
+	r->d = d;
+}
+
+/* The same quantities by brute force on the whole n x n V (GSL's dense Cholesky): ll, beta, C. */
+static void dense_eval(const struct rdata *r, const double *th, int reml, struct mr_eval *out)
+{
+	int n = r->n, p = r->p, slopes = r->d.slope_col >= 0;
+	gsl_matrix *V = gsl_matrix_alloc(n, n), *WX = gsl_matrix_alloc(n, p);
+	gsl_vector *wy = gsl_vector_alloc(n);
+	double tau2 = th[0], cov = slopes ? th[1] : 0, ts = slopes ? th[2] : 0;
+	double sig2 = r->d.effect ? th[slopes ? 3 : 1] : 0, A[64] = {0}, xtx[64] = {0}, b[8] = {0};
+	double ld = 0, ldx = 0, ldxx = 0, rwr = 0;
+
+	for (int i = 0; i < n; i++)
+		for (int j = 0; j < n; j++) {
+			double x = 0, fi = r->X[p * i + 1], fj = r->X[p * j + 1];
+			if (r->study[i] == r->study[j])
+				x = tau2 + cov * (fi + fj) + ts * fi * fj;
+			if (r->d.effect && r->study[i] == r->study[j] && r->effect[i] == r->effect[j])
+				x += sig2;
+			gsl_matrix_set(V, i, j, x + (i == j ? r->v[i] : 0));
+		}
+	assert_int_equal(gsl_linalg_cholesky_decomp1(V), 0);
+	for (int i = 0; i < n; i++) {
+		ld += 2 * log(gsl_matrix_get(V, i, i));
+		gsl_vector_set(wy, i, r->y[i]);
+		for (int j = 0; j < p; j++)
+			gsl_matrix_set(WX, i, j, r->X[p * i + j]);
+	}
+	gsl_linalg_cholesky_svx(V, wy);
+	assert_int_equal(gsl_linalg_cholesky_svx_mat(V, WX), 0);
+	for (int j = 0; j < p; j++)
+		for (int k = 0; k < p; k++)
+			for (int i = 0; i < n; i++) {
+				A[j * p + k] += r->X[p * i + j] * gsl_matrix_get(WX, i, k);
+				xtx[j * p + k] += r->X[p * i + j] * r->X[p * i + k];
+				if (k == 0)
+					b[j] += r->X[p * i + j] * gsl_vector_get(wy, i);
+			}
+	gsl_matrix_view Av = gsl_matrix_view_array(A, p, p), Xv = gsl_matrix_view_array(xtx, p, p);
+	gsl_vector_view bv = gsl_vector_view_array(b, p), betav = gsl_vector_view_array(out->beta, p);
+	assert_int_equal(gsl_linalg_cholesky_decomp1(&Av.matrix), 0);
+	assert_int_equal(gsl_linalg_cholesky_decomp1(&Xv.matrix), 0);
+	gsl_linalg_cholesky_solve(&Av.matrix, &bv.vector, &betav.vector);
+	for (int j = 0; j < p; j++) {
+		ldx += 2 * log(A[j * p + j]);
+		ldxx += 2 * log(xtx[j * p + j]);
+	}
+	gsl_linalg_cholesky_invert(&Av.matrix);
+	memcpy(out->C, A, sizeof(double) * p * p);
+	for (int i = 0; i < n; i++) {     /* r'V^-1 r = y'V^-1 y - b'X'V^-1 y at the GLS estimate */
+		double res = r->y[i];
+		for (int j = 0; j < p; j++)
+			res -= r->X[p * i + j] * out->beta[j];
+		double wr = gsl_vector_get(wy, i);
+		for (int j = 0; j < p; j++)
+			wr -= gsl_matrix_get(WX, i, j) * out->beta[j];
+		rwr += res * wr;
+	}
+	out->ll = reml ? -0.5 * ((n - p) * log(2 * M_PI) + ld + ldx - ldxx + rwr) :
+			 -0.5 * (n * log(2 * M_PI) + ld + rwr);
+	gsl_matrix_free(V);
+	gsl_matrix_free(WX);
+	gsl_vector_free(wy);
+}
+
+static void assert_rel(double a, double b, double tol, const char *what, int k)
+{
+	if (!(fabs(a - b) <= tol * (1 + fabs(b))))
+		fail_msg("%s[%d] = %.15g, expected %.15g", what, k, a, b);
+}
+
+/* The closed form (intercept models) and the general Cholesky path agree with each other and
+ * with the dense computation: log-likelihood, coefficients and their covariance, score,
+ * observed Hessian and expected information, both criteria, every effect-level layout. */
+static void test_closed_form(void **state)
+{
+	gsl_rng *rng = gsl_rng_alloc(gsl_rng_mt19937);
+	static struct rdata r;
+	(void)state;
+	gsl_rng_set(rng, 17);
+	for (int rep = 0; rep < 30; rep++)
+		for (int mode = 0; mode < 3; mode++) {
+			struct sd_err e = { 0 };
+			random_data(rng, mode, 0, rep % 5 ? 3 : 8, &r);
+			struct mr_work *w = mr_work_new(&r.d, &e);
+			if (!w)
+				fail_msg("%s", e.msg);
+			int K = mr_work_nvc(w);
+			double th[MR_MAXK] = { 0.02 * gsl_rng_uniform(rng), 0.02 * gsl_rng_uniform(rng) };
+			if (rep == 0)
+				th[0] = 0;                 /* a boundary is an ordinary point */
+			for (int reml = 0; reml < 2; reml++) {
+				struct mr_eval cf, gp, dn;
+				w->general = 0;
+				assert_int_equal(mr_work_eval(w, th, reml, MR_WANT_HESS, &cf), 0);
+				w->general = 1;
+				assert_int_equal(mr_work_eval(w, th, reml, MR_WANT_HESS, &gp), 0);
+				dense_eval(&r, th, reml, &dn);
+				assert_rel(cf.ll, dn.ll, 1e-10, "ll", 0);
+				assert_rel(gp.ll, dn.ll, 1e-10, "ll general", 0);
+				for (int j = 0; j < r.p; j++) {
+					assert_rel(cf.beta[j], dn.beta[j], 1e-9, "beta", j);
+					assert_rel(gp.beta[j], dn.beta[j], 1e-9, "beta general", j);
+				}
+				for (int j = 0; j < r.p * r.p; j++) {
+					assert_rel(cf.C[j], dn.C[j], 1e-9, "C", j);
+					assert_rel(gp.C[j], dn.C[j], 1e-9, "C general", j);
+				}
+				for (int k = 0; k < K; k++) {
+					double gs = 1e-9 * (1 + fabs(gp.g[k]));
+					assert_near(cf.g[k], gp.g[k], gs);
+					for (int l = 0; l < K; l++) {
+						double hs = 1e-9 * (1 + fabs(gp.H[k * K + l]));
+						assert_near(cf.H[k * K + l], gp.H[k * K + l], hs);
+						assert_near(cf.F[k * K + l], gp.F[k * K + l], hs);
+					}
+				}
+			}
+			mr_work_free(w);
+		}
+	gsl_rng_free(rng);
+}
+
+/* The general path with random slopes (the small Cholesky factorisation) against the dense
+ * computation, and its score and Hessian against differences of the likelihood. */
+static void test_general_slopes(void **state)
+{
+	gsl_rng *rng = gsl_rng_alloc(gsl_rng_mt19937);
+	static struct rdata r;
+	(void)state;
+	gsl_rng_set(rng, 18);
+	for (int rep = 0; rep < 20; rep++) {
+		struct sd_err e = { 0 };
+		int mode = rep % 3;
+		random_data(rng, mode, 1, rep % 5 ? 3 : 8, &r);
+		struct mr_work *w = mr_work_new(&r.d, &e);
+		if (!w)
+			fail_msg("%s", e.msg);
+		double t0 = 0.02 * gsl_rng_uniform(rng), t2 = 0.05 * gsl_rng_uniform(rng);
+		double rho = 2 * gsl_rng_uniform(rng) - 1;
+		double th[MR_MAXK] = { t0, rho * sqrt(t0 * t2), t2, 0.02 * gsl_rng_uniform(rng) };
+		for (int reml = 0; reml < 2; reml++) {
+			struct mr_eval ev, dn;
+			assert_int_equal(mr_work_eval(w, th, reml, MR_WANT_HESS, &ev), 0);
+			dense_eval(&r, th, reml, &dn);
+			assert_rel(ev.ll, dn.ll, 1e-10, "ll", 0);
+			for (int j = 0; j < r.p; j++)
+				assert_rel(ev.beta[j], dn.beta[j], 1e-9, "beta", j);
+			for (int j = 0; j < r.p * r.p; j++)
+				assert_rel(ev.C[j], dn.C[j], 1e-9, "C", j);
+			check_fd(w, th, reml, 1e-8, 1);   /* |rho| near 1: a step may leave */
+		}
+		mr_work_free(w);
+	}
+	gsl_rng_free(rng);
+}
+
+/* The closed form's score and Hessian against differences of its own likelihood, with effect
+ * groups of several rows (the sums the simulation files never exercise). */
+static void test_closed_form_derivatives(void **state)
+{
+	gsl_rng *rng = gsl_rng_alloc(gsl_rng_mt19937);
+	static struct rdata r;
+	(void)state;
+	gsl_rng_set(rng, 19);
+	for (int rep = 0; rep < 10; rep++) {
+		struct sd_err e = { 0 };
+		random_data(rng, 2, 0, 3, &r);
+		struct mr_work *w = mr_work_new(&r.d, &e);
+		assert_non_null(w);
+		double th[MR_MAXK] = { 0.002 + 0.02 * gsl_rng_uniform(rng),
+				       0.002 + 0.02 * gsl_rng_uniform(rng) };
+		for (int reml = 0; reml < 2; reml++)
+			check_fd(w, th, reml, 1e-8, 0);
+		mr_work_free(w);
+	}
+	gsl_rng_free(rng);
+}
+
+/* A repeated request returns the earlier result, never a stale one after another point. */
+static void test_eval_memo(void **state)
+{
+	struct ef_spec sp = sim_spec(SD_FORM_RECIPROCAL, 0);
+	struct ef_table t;
+	struct ef_model m;
+	struct sd_err e = { 0 };
+	struct mr_eval a, b, c, d;
+	double t1[MR_MAXK] = { 0.0015, 0.001 }, t2[MR_MAXK] = { 0.002, 0.0005 };
+	(void)state;
+	load(REF "sim_reciprocal_effects.csv", &sp, &t, &m);
+	struct mr_work *w = mr_work_new(&m.d, &e);
+	assert_int_equal(mr_work_eval(w, t1, 1, MR_WANT_HESS, &a), 0);
+	assert_int_equal(mr_work_eval(w, t2, 1, MR_WANT_LL, &b), 0);
+	assert_true(a.ll != b.ll);
+	assert_int_equal(mr_work_eval(w, t1, 1, MR_WANT_GRAD, &c), 0);
+	assert_true(c.ll == a.ll && c.g[0] == a.g[0] && c.g[1] == a.g[1]);
+	assert_int_equal(mr_work_eval(w, t1, 0, MR_WANT_LL, &d), 0);   /* other criterion */
+	assert_true(d.ll != a.ll);
+	assert_int_equal(mr_work_eval(w, t1, 1, MR_WANT_HESS, &d), 0);
+	assert_true(d.ll == a.ll && d.H[1] == a.H[1]);
+	mr_work_free(w);
+	ef_model_free(&m);
+	eft_free(&t);
+}
+
+/* Extra starts only on a reason: the well-curved interior maxima of the 200-study data need
+ * none (nor the quasi-Newton stage); boundary estimates (test_boundary's data) get them. */
+static void test_start_logic(void **state)
+{
+	struct ef_table t;
+	struct ef_model m;
+	(void)state;
+	for (int slopes = 0; slopes < 2; slopes++) {
+		struct ef_spec sp = sim_spec(SD_FORM_RECIPROCAL, slopes);
+		load("tests/bench/bench_big200_effects.csv", &sp, &t, &m);
+		struct mr_fit f = fit_or_fail(&m.d, MR_REML);
+		assert_int_equal(f.iter_bfgs, 0);
+		assert_true(f.iter_newton <= 6);
+		if (!slopes)
+			assert_int_equal(f.starts, 0);
+		ef_model_free(&m);
+		eft_free(&t);
+	}
+	double y[8] = { 0.10, 0.11, 0.10, 0.09, 0.10, 0.11, 0.09, 0.10 }, v[8], X[8];
+	int s[8] = { 1, 1, 2, 2, 3, 3, 4, 4 }, ef[8] = { 1, 2, 3, 4, 5, 6, 7, 8 };
+	for (int i = 0; i < 8; i++) {
+		v[i] = 0.01;
+		X[i] = 1;
+	}
+	struct mr_data d = { 8, 1, y, v, X, s, ef, -1, NULL };
+	struct mr_fit f = fit_or_fail(&d, MR_REML);
+	assert_true(f.tau2_zero && f.sigma2_zero);
+	assert_true(f.starts > 0);
 }
 
 /* Leave-one-study-out with warm starts equals refitting each reduced data set from scratch. */
@@ -765,6 +1052,11 @@ int main(void)
 		cmocka_unit_test(test_blups),
 		cmocka_unit_test(test_big200),
 		cmocka_unit_test(test_derivatives),
+		cmocka_unit_test(test_closed_form),
+		cmocka_unit_test(test_general_slopes),
+		cmocka_unit_test(test_closed_form_derivatives),
+		cmocka_unit_test(test_eval_memo),
+		cmocka_unit_test(test_start_logic),
 		cmocka_unit_test(test_loso),
 		cmocka_unit_test(test_one_study),
 		cmocka_unit_test(test_constant_dose),

@@ -4,10 +4,10 @@
  * (an intercept, optionally with a slope on one column of X: covariance G, 2x2 unstructured),
  * w an effect-level random intercept (variance sigma2, groups nested in studies, optional).
  * V = blockdiag over studies of Z_i G Z_i' + sigma2 A_i + diag(v_i), never formed whole.
- * Variance parameters are estimated by REML (default) or ML: a quasi-Newton search (GSL
- * BFGS2 on log-variances and atanh(rho)) then Newton steps on the exact Hessian in square-root
- * (Cholesky) parameters, where a variance of 0 or a correlation of +-1 is an ordinary point;
- * such boundary estimates are reported exactly (see mr_opt.c).
+ * Variance parameters are estimated by REML (default) or ML: Newton steps on the exact Hessian
+ * in square-root (Cholesky) parameters from method-of-moments starting values (a quasi-Newton
+ * search first only when they do not converge), where a variance of 0 or a correlation of +-1
+ * is an ordinary point; such boundary estimates are reported exactly (see mr_opt.c).
  * The restricted log-likelihood includes metafor's constant +1/2 log|X'X| (Viechtbauer 2010),
  * and AIC/BIC count the fixed effects plus the variance parameters (BIC with log(n - p) under
  * REML), so the figures are comparable with that package.

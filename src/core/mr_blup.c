@@ -6,8 +6,6 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include <gsl/gsl_linalg.h>
-
 #include "mr_lik.h"
 
 /* Weighted least squares of y on [1, x] inside one study, weights 1/(v + sigma2): the
@@ -36,7 +34,7 @@ static void raw_slope(const double *x, const double *y, const double *v, int m, 
 }
 
 /* Scratch of 5 m doubles: Z and W Z (m x 2 each) and the doses. */
-static int study(const struct mr_fit *f, const struct mr_blockview *bv, const double *C,
+static void study(const struct mr_fit *f, const struct mr_blockview *bv, const double *C,
 		 double *scr, struct mr_study *o)
 {
 	int m = bv->m, p = f->p, nz = f->slopes ? 2 : 1;
@@ -51,9 +49,9 @@ static int study(const struct mr_fit *f, const struct mr_blockview *bv, const do
 	o->k = m;
 	for (int a = 0; a < m; a++) {
 		xs[a] = f->slopes ? bv->f[a] : p > 1 ? bv->X[a * p + 1] : 0;
-		WZ[a * nz] = Z[a * nz] = 1;
+		Z[a * nz] = 1;
 		if (nz == 2)
-			WZ[a * nz + 1] = Z[a * nz + 1] = bv->f[a];
+			Z[a * nz + 1] = bv->f[a];
 	}
 	o->ndose = 0;
 	for (int a = 0; a < m; a++) {
@@ -62,10 +60,13 @@ static int study(const struct mr_fit *f, const struct mr_blockview *bv, const do
 			seen = xs[c] == xs[a];
 		o->ndose += !seen;
 	}
-	gsl_matrix_const_view L = gsl_matrix_const_view_array(bv->L, m, m);
-	gsl_matrix_view WZv = gsl_matrix_view_array(WZ, m, nz);
-	if (gsl_linalg_cholesky_svx_mat(&L.matrix, &WZv.matrix))
-		return -1;
+	for (int a = 0; a < m; a++)
+		for (int i = 0; i < nz; i++) {
+			double x = 0;
+			for (int c = 0; c < m; c++)
+				x += bv->W[a * m + c] * Z[c * nz + i];
+			WZ[a * nz + i] = x;
+		}
 	/* u = G Z'q; Var(u - u^) = G - G Z'PZ G with Z'PZ = Z'WZ - Z'WX C X'WZ. */
 	double zq[2] = {0}, zwz[4] = {0}, zwx[2 * MR_MAXP] = {0}, zpz[4], gz[4] = {0};
 	for (int a = 0; a < m; a++)
@@ -103,7 +104,6 @@ static int study(const struct mr_fit *f, const struct mr_blockview *bv, const do
 	o->se_u1 = nz == 2 ? sqrt(var[1] > 0 ? var[1] : 0) : 0;
 	o->weight = zwz[0];    /* 1'V^-1 1, made a share by the caller */
 	raw_slope(xs, bv->y, bv->v, m, f->sigma2, o);
-	return 0;
 }
 
 int mr_studies(const struct mr_data *d, const struct mr_fit *f, struct mr_study *out,
@@ -120,16 +120,14 @@ int mr_studies(const struct mr_data *d, const struct mr_fit *f, struct mr_study 
 			sd_fail(e, "out of memory");
 		goto done;
 	}
+	w->general = 1;     /* the block inverses are needed below */
 	if (mr_work_nblock(w) != f->nstudy || mr_work_eval(w, f->theta, 0, MR_WANT_LL, &ev)) {
 		sd_fail(e, "the fit does not match the data");
 		goto done;
 	}
 	for (int b = 0; b < f->nstudy; b++) {
 		mr_work_view(w, b, &bv);
-		if (study(f, &bv, ev.C, scr, &out[b])) {
-			sd_fail(e, "study %d: its covariance factor is unusable", bv.id);
-			goto done;
-		}
+		study(f, &bv, ev.C, scr, &out[b]);
 		total += out[b].weight;
 	}
 	for (int b = 0; b < f->nstudy; b++)

@@ -1,10 +1,7 @@
 /* Maximising the (restricted) likelihood over the variance parameters.
  *
- * Stage 1 is GSL's BFGS2 on unconstrained parameters: log(variance / scale) for each variance
- * and atanh(rho) for the slope correlation, so every iterate is a valid covariance.
- *
- * Stage 2 is Newton's method on the exact Hessian in "root" parameters: the square root of
- * each intercept variance and the Cholesky factor L of the 2x2 slope covariance G = L L'
+ * Newton's method on the exact Hessian in "root" parameters: the square root of each
+ * intercept variance and the Cholesky factor L of the 2x2 slope covariance G = L L'
  * (tau2 = l1^2, cov = l1 l2, tau2_slope = l2^2 + l3^2). Every real vector of roots is a valid
  * covariance and every boundary is an ordinary point: a variance of 0 is a root of 0, a slope
  * correlation of +-1 is l3 = 0. At a boundary maximum the likelihood is locally a concave
@@ -14,10 +11,18 @@
  * eigenvalues (the saddle-free Newton step), and at a saddle (a root of 0 whose variance
  * would raise the likelihood) the step follows the direction of negative curvature.
  *
+ * A fresh fit runs Newton from a moment estimate (mr_start). Only if that does not converge
+ * does a quasi-Newton search (GSL BFGS2 on log-variances and atanh(rho), so every iterate is a
+ * valid covariance) bring the search near the optimum for Newton to finish.
+ *
  * The likelihood can have more than one maximum (a boundary and an interior one, typically
- * with few studies), so a fresh fit also runs the Newton stage from other starts (each
- * variance's boundary, and with few studies a grid of scales) and keeps the best converged
- * result. */
+ * with few studies), so the first fit is followed by other starts (Newton only) when it shows
+ * a reason to look: it did not converge, an estimate lies on a boundary, or the curvature at
+ * the maximum is flat or not negative definite; then each variance's boundary and, with few
+ * studies, a grid of scales are tried and the best converged result kept. A well-curved
+ * interior maximum has its boundaries checked only where the quadratic model says the
+ * boundary lies within REACH log-likelihood units (the others cannot plausibly hold a higher
+ * maximum). */
 #include "mr_lik.h"
 
 #include <math.h>
@@ -32,8 +37,13 @@
  * log-likelihood units per log-variance); the Newton stage then converges in a few steps. */
 #define BFGS_GTOL 1.0
 #define DEC_TOL 1e-15     /* Newton decrement g'A^-1 g, log-likelihood units */
+/* Below this decrement one more full Newton step lands within DEC_TOL (the decrement about
+ * squares with each step near the maximum), so that step is taken without derivatives. */
+#define DEC_LAST 1e-8
 #define SNAP 1e-10        /* a variance below SNAP x its scale is a boundary 0 */
 #define GRID_STUDIES 60   /* extra grid starts up to this many studies */
+#define REACH 8.0         /* boundary checked when the quadratic model's drop to it is smaller */
+#define FLAT 1e-8         /* curvature flat: smallest / largest eigenvalue, scaled roots */
 
 struct ctx {
 	struct mr_work *w;
@@ -346,6 +356,57 @@ static int hopeless(const struct ctx *c, const struct best *b, const struct mr_e
 	return dist < 1e-3;
 }
 
+/* The curvature at a converged maximum in roots scaled to their parameters' sizes: flat when
+ * -H is not clearly positive definite; otherwise, for each variance, the quadratic model's
+ * log-likelihood drop when its roots go to 0 with the other roots re-maximised,
+ * 1/2 r_S' [(-H)^-1_SS]^-1 r_S (S: one root, or the slope variance's two). */
+static void curvature(const struct ctx *c, const double *r, const double *Hr,
+		      gsl_eigen_symmv_workspace *ws, struct mr_conv *cv)
+{
+	int K = c->K;
+	double A[MR_MAXK * MR_MAXK], V[MR_MAXK * MR_MAXK], lam[MR_MAXK], D[MR_MAXK];
+	double Ai[MR_MAXK * MR_MAXK], z[MR_MAXK], lmin = INFINITY, lmax = 0;
+	gsl_matrix_view Av = gsl_matrix_view_array(A, K, K), Vv = gsl_matrix_view_array(V, K, K);
+	gsl_vector_view lv = gsl_vector_view_array(lam, K);
+
+	cv->flat = 1;
+	for (int k = 0; k < K; k++) {
+		D[k] = sqrt(c->scale[k]);
+		z[k] = r[k] / D[k];
+		cv->drop[k] = 0;
+	}
+	for (int i = 0; i < K; i++)
+		for (int j = 0; j < K; j++)
+			A[i * K + j] = -Hr[i * K + j] * D[i] * D[j];
+	if (gsl_eigen_symmv(&Av.matrix, &lv.vector, &Vv.matrix, ws))
+		return;
+	for (int i = 0; i < K; i++) {
+		lmin = fmin(lmin, lam[i]);
+		lmax = fmax(lmax, lam[i]);
+	}
+	if (!(lmin > FLAT * lmax))
+		return;
+	cv->flat = 0;
+	for (int i = 0; i < K; i++)
+		for (int j = 0; j < K; j++) {
+			double x = 0;
+			for (int l = 0; l < K; l++)
+				x += V[i * K + l] * V[j * K + l] / lam[l];
+			Ai[i * K + j] = x;
+		}
+	for (int k = 0; k < K; k++) {
+		if (!is_var(c->w, k))
+			continue;
+		if (c->slopes && k == 2) {            /* tau2_slope = l2^2 + l3^2 */
+			double a = Ai[1 * K + 1], b = Ai[1 * K + 2], d = Ai[2 * K + 2];
+			double det = a * d - b * b;
+			cv->drop[k] = 0.5 * (d * z[1] * z[1] - 2 * b * z[1] * z[2] + a * z[2] * z[2]) / det;
+		} else {
+			cv->drop[k] = 0.5 * z[k] * z[k] / Ai[k * K + k];
+		}
+	}
+}
+
 static int newton(struct ctx *c, int max_iter, double *theta, struct mr_conv *cv,
 		  gsl_eigen_symmv_workspace *ws, const struct best *b)
 {
@@ -353,17 +414,31 @@ static int newton(struct ctx *c, int max_iter, double *theta, struct mr_conv *cv
 	struct mr_eval ev, nx;
 	struct step st;
 	double r[MR_MAXK] = {0}, gr[MR_MAXK], Hr[MR_MAXK * MR_MAXK], trial[MR_MAXK] = {0};
+	double tg[MR_MAXK], tH[MR_MAXK * MR_MAXK];
 
 	cv->converged = 0;
 	theta_to_root(c, theta, r);
+	if (eval_root(c, r, MR_WANT_HESS, &ev, gr, Hr))
+		return -1;
 	for (int it = 0; it < max_iter; it++) {
-		if (eval_root(c, r, MR_WANT_HESS, &ev, gr, Hr) || direction(K, Hr, gr, ws, &st))
+		if (direction(K, Hr, gr, ws, &st))
 			return -1;
 		cv->iter_newton++;
 		cv->decrement = st.dec;
 		cv->loglik = ev.ll;
 		int saddle = st.lmin < -1e-8 * (1 + fabs(st.lmin)) && st.dec < 1e-8;
 		if (st.dec < DEC_TOL && !saddle) {
+			cv->converged = 1;
+			break;
+		}
+		if (st.dec < DEC_LAST && !saddle) {
+			for (int k = 0; k < K; k++)
+				trial[k] = r[k] + st.d[k];
+			if (!eval_root(c, trial, MR_WANT_LL, &nx, NULL, NULL) &&
+			    nx.ll >= ev.ll - 1e-12 * (1 + fabs(ev.ll))) {
+				memcpy(r, trial, sizeof r);
+				cv->loglik = nx.ll;
+			}
 			cv->converged = 1;
 			break;
 		}
@@ -382,18 +457,20 @@ static int newton(struct ctx *c, int max_iter, double *theta, struct mr_conv *cv
 			for (int k = 0; k < K; k++)
 				st.d[k] = (sg < 0 ? -1 : 1) * st.v[k] * size;
 		}
-		double alpha = 1;
-		int ok = 0;
+		/* The full step is evaluated with its derivatives, which the next iteration reuses
+		 * when it is accepted (nearly always); shorter steps with the likelihood alone. */
+		double alpha = 1, tol = 1e-12 * (1 + fabs(ev.ll));
+		int ok = 0, full = 0;
 		for (int half = 0; half < 50 && !ok; half++) {
-			double th[MR_MAXK];
 			for (int k = 0; k < K; k++)
 				trial[k] = r[k] + alpha * st.d[k];
-			root_to_theta(c, trial, th, NULL);
-			if (!mr_work_eval(c->w, th, c->reml, MR_WANT_LL, &nx) &&
-			    nx.ll >= ev.ll - 1e-12 * (1 + fabs(ev.ll)))
-				ok = 1;
+			if (half == 0)
+				ok = full = !eval_root(c, trial, MR_WANT_HESS, &nx, tg, tH) &&
+					    nx.ll >= ev.ll - tol;
 			else
-				alpha /= 2;
+				ok = !eval_root(c, trial, MR_WANT_LL, &nx, NULL, NULL) &&
+				     nx.ll >= ev.ll - tol;
+			alpha /= 2;
 		}
 		if (!ok) {
 			/* No step improves: at the optimum to rounding, if the decrement is small. */
@@ -401,10 +478,19 @@ static int newton(struct ctx *c, int max_iter, double *theta, struct mr_conv *cv
 			break;
 		}
 		memcpy(r, trial, sizeof r);
-		cv->loglik = nx.ll;
+		if (full) {
+			ev = nx;
+			memcpy(gr, tg, sizeof gr);
+			memcpy(Hr, tH, sizeof Hr);
+		} else if (eval_root(c, r, MR_WANT_HESS, &ev, gr, Hr)) {
+			return -1;
+		}
+		cv->loglik = ev.ll;
 	}
-	if (cv->converged)
+	if (cv->converged) {
+		curvature(c, r, Hr, ws, cv);
 		snap(c, r, cv->loglik, cv);
+	}
 	root_to_theta(c, r, theta, NULL);
 	for (int k = 0; k < K; k++)
 		cv->zero[k] = is_var(c->w, k) && theta[k] == 0;
@@ -456,25 +542,37 @@ int mr_optimise(struct mr_work *w, int reml, int max_iter, int warm, double *the
 		memcpy(theta, start, sizeof start);
 		memset(cv, 0, sizeof *cv);
 	}
-	if (bfgs(&c, bmax, theta, &cv->iter_bfgs)) {
-		why = "out of memory";
+	if (!warm && newton(&c, nmax, theta, cv, ws, NULL))
 		goto done;
+	if (warm || !cv->converged) {
+		int in = cv->iter_newton;
+		memcpy(theta, start, sizeof start);
+		memset(cv, 0, sizeof *cv);
+		if (bfgs(&c, bmax, theta, &cv->iter_bfgs)) {
+			why = "out of memory";
+			goto done;
+		}
+		if (newton(&c, nmax, theta, cv, ws, NULL))
+			goto done;
+		cv->iter_newton += in;
 	}
-	if (newton(&c, nmax, theta, cv, ws, NULL))
-		goto done;
-	/* More starts, Newton steps only. First the boundary of each variance: the best fit with
-	 * that variance (and the slope covariance) set near 0, pursued only when the likelihood
-	 * there falls as the variance grows, i.e. when the boundary may hold a maximum of its own.
-	 * Then, with at most GRID_STUDIES studies (where likelihoods with two maxima turn up; with
-	 * more the surface is close to quadratic and these starts would only cost time), every
-	 * variance at 0.01, 0.1, 1 and 10 times its scale. A fit capped by --max-iter is
-	 * reported as it stands. */
+	/* A fit capped by --max-iter is reported as it stands. Otherwise more starts, Newton
+	 * steps only, when the first fit gives a reason (see the top of the file). First the
+	 * boundary of each variance: the best fit with that variance (and the slope covariance)
+	 * set near 0, pursued only when the likelihood there falls as the variance grows, i.e.
+	 * when the boundary may hold a maximum of its own. Then, with at most GRID_STUDIES
+	 * studies (where likelihoods with two maxima turn up; with more the surface is close to
+	 * quadratic and these starts would only cost time), every variance at 0.01, 0.1, 1 and
+	 * 10 times its scale. */
+	int wide = !cv->converged || cv->flat || cv->rho_bound;
+	for (int k = 0; k < c.K; k++)
+		wide |= cv->zero[k];
 	static const double grid[] = { 1e-2, 1e-1, 1, 10 };
-	int nstart = c.K + (mr_work_nblock(w) <= GRID_STUDIES ? (int)(sizeof grid / sizeof grid[0]) : 0);
-	for (int i = 0; max_iter <= 0 && i < nstart; i++) {
+	int ngrid = wide && mr_work_nblock(w) <= GRID_STUDIES ? (int)(sizeof grid / sizeof *grid) : 0;
+	for (int i = 0; max_iter <= 0 && i < c.K + ngrid; i++) {
 		if (i < c.K) {
 			struct mr_eval ev;
-			if (!is_var(w, i) || cv->zero[i])
+			if (!is_var(w, i) || cv->zero[i] || (!wide && cv->drop[i] >= REACH))
 				continue;
 			memcpy(t, theta, sizeof t);
 			t[i] = 1e-6 * c.scale[i];

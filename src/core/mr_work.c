@@ -1,6 +1,6 @@
-/* The data of a meta-regression grouped by study: block order, copies of the rows, the
- * derivative matrices of each block, the checks that the model can be fitted at all, and
- * starting values. The likelihood itself is in mr_lik.c. */
+/* The data of a meta-regression grouped by study: block order, copies of the rows, each
+ * block's effect-level groups and the checks that the model can be fitted at all. The
+ * likelihood itself is in mr_lik.c and mr_cs.c, the starting values in mr_start.c. */
 #include "mr_lik.h"
 
 #include <math.h>
@@ -47,18 +47,29 @@ void mr_work_free(struct mr_work *w)
 	free(w->blen);
 	free(w->bid);
 	free(w->loff);
+	free(w->ngrp);
+	free(w->gsize);
+	free(w->bmulti);
+	free(w->logv);
+	free(w->iv);
+	free(w->ca);
+	free(w->ct);
+	free(w->cid);
+	free(w->cb);
+	free(w->caX);
 	free(w->y);
 	free(w->v);
 	free(w->X);
 	free(w->f);
 	free(w->eg);
-	free(w->L);
+	free(w->W);
 	free(w->WX);
 	free(w->r);
 	free(w->q);
 	free(w->S);    /* allocated by the first evaluation */
 	free(w->scr);
-	free(w->basis);
+	free(w->iscr);
+	free(w->memo);
 	free(w);
 }
 
@@ -171,12 +182,16 @@ static int group_blocks(struct mr_work *w, struct sd_err *e)
 		int s = w->bstart[b], m = w->blen[b], ngrp = 0, ndose = 1;
 		w->loff[b] = loff;
 		loff += m * m;
+		w->logv[b] = 0;
 		if (m > w->mmax)
 			w->mmax = m;
 		for (int i = s; i < s + m; i++) {
 			int r = w->order[i];
 			w->y[i] = d->y[r];
 			w->v[i] = d->v[r];
+			w->iv[i] = 1 / d->v[r];
+			w->logv[b] += log(d->v[r]);
+			w->gsize[i] = 0;
 			memcpy(w->X + (size_t)i * p, d->X + (size_t)r * p, sizeof(double) * p);
 			w->f[i] = d->slope_col >= 0 ? d->X[(size_t)r * p + d->slope_col] : 0;
 			if (w->eg) {
@@ -193,6 +208,10 @@ static int group_blocks(struct mr_work *w, struct sd_err *e)
 					ndose++;
 			}
 		}
+		w->ngrp[b] = w->eg ? ngrp : m;
+		w->bmulti[b] = 0;
+		for (int i = s; w->eg && i < s + m; i++)
+			w->bmulti[b] |= ++w->gsize[s + w->eg[i]] > 1;
 		multi_eff += ngrp >= 2;
 		multi_dose += ndose >= 2;
 	}
@@ -206,31 +225,6 @@ static int group_blocks(struct mr_work *w, struct sd_err *e)
 		return sd_fail(e, "random slopes need at least one study with two or more doses; "
 			       "every study has a single dose");
 	return 0;
-}
-
-/* Entry (a, c) of the derivative of block V with respect to a parameter of kind k. */
-static double basis_entry(const struct mr_work *w, int s, int a, int c, enum mr_kind k)
-{
-	double fa = w->f[s + a], fc = w->f[s + c];
-	switch (k) {
-	case MR_K_TAU2: return 1;
-	case MR_K_COV: return fa + fc;
-	case MR_K_SLOPE: return fa * fc;
-	case MR_K_SIGMA2: return w->eg[s + a] == w->eg[s + c];
-	}
-	return 0;
-}
-
-static void fill_basis(struct mr_work *w)
-{
-	for (int b = 0; b < w->nb; b++) {
-		int s = w->bstart[b], m = w->blen[b];
-		double *B = w->basis + (size_t)w->nk * w->loff[b];
-		for (int k = 0; k < w->nk; k++)
-			for (int a = 0; a < m; a++)
-				for (int c = 0; c < m; c++)
-					B[((size_t)k * m + a) * m + c] = basis_entry(w, s, a, c, w->kind[k]);
-	}
 }
 
 struct mr_work *mr_work_new(const struct mr_data *d, struct sd_err *e)
@@ -274,6 +268,16 @@ struct mr_work *mr_work_new(const struct mr_data *d, struct sd_err *e)
 	w->blen = malloc(sizeof(int) * n);
 	w->bid = malloc(sizeof(int) * n);
 	w->loff = malloc(sizeof(int) * n);
+	w->ngrp = malloc(sizeof(int) * n);
+	w->gsize = malloc(sizeof(int) * n);
+	w->bmulti = malloc(sizeof(int) * n);
+	w->logv = malloc(sizeof(double) * n);
+	w->iv = malloc(sizeof(double) * n);
+	w->ca = malloc(sizeof(double) * n);
+	w->ct = malloc(sizeof(double) * n);
+	w->cid = malloc(sizeof(double) * n);
+	w->cb = malloc(sizeof(double) * 3 * n);
+	w->caX = malloc(sizeof(double) * n * p);
 	w->y = malloc(sizeof(double) * n);
 	w->v = malloc(sizeof(double) * n);
 	w->f = malloc(sizeof(double) * n);
@@ -282,7 +286,9 @@ struct mr_work *mr_work_new(const struct mr_data *d, struct sd_err *e)
 	w->q = malloc(sizeof(double) * n);
 	w->r = malloc(sizeof(double) * n);
 	w->eg = d->effect ? malloc(sizeof(int) * n) : NULL;
-	if (!w->order || !w->bstart || !w->blen || !w->bid || !w->loff || !w->y || !w->v ||
+	if (!w->order || !w->bstart || !w->blen || !w->bid || !w->loff || !w->ngrp || !w->logv ||
+	    !w->gsize || !w->bmulti || !w->iv || !w->ca || !w->ct || !w->cid || !w->cb ||
+	    !w->caX || !w->y || !w->v ||
 	    !w->f || !w->X || !w->WX || !w->q || !w->r || (d->effect && !w->eg)) {
 		sd_fail(e, "out of memory");
 		goto fail;
@@ -293,19 +299,19 @@ struct mr_work *mr_work_new(const struct mr_data *d, struct sd_err *e)
 	qsort(w->order, n, sizeof(int), cmp_rows);
 	if (group_blocks(w, e))
 		goto fail;
-	size_t nl = 0, m = w->mmax;
+	size_t nl = 0, r = (size_t)w->mmax + 2;
 	for (int b = 0; b < w->nb; b++)
 		nl += (size_t)w->blen[b] * w->blen[b];
-	w->L = malloc(sizeof(double) * nl);
-	w->basis = malloc(sizeof(double) * nl * w->nk);
-	/* scratch: W, W V_k (K m^2), V_k WX and W V_k WX (K m p each), V_k q and W V_k q */
-	w->scr = malloc(sizeof(double) * ((1 + MR_MAXK) * m * m + 2 * MR_MAXK * m * p +
-					  2 * MR_MAXK * m));
-	if (!w->L || !w->scr || !w->basis) {
+	w->closed = d->slope_col < 0;
+	w->W = malloc(sizeof(double) * nl);
+	/* scratch: the general path's L^-1, U'W, M, Y, U'q, Y C, Y C Y' (r = columns of U), or the
+	 * closed form's per-row and per-group values (fewer) */
+	w->scr = malloc(sizeof(double) * r * (4 * r + 3 * p + 10));
+	w->iscr = malloc(sizeof(int) * 2 * (MR_MAXK + 2 + r));
+	if (!w->W || !w->scr || !w->iscr) {
 		sd_fail(e, "out of memory");
 		goto fail;
 	}
-	fill_basis(w);
 	if (mr_work_exclude(w, -1, e))
 		goto fail;
 	return w;
@@ -341,14 +347,26 @@ int mr_work_exclude(struct mr_work *w, int b, struct sd_err *e)
 
 void mr_work_vblock(const struct mr_work *w, int b, const double *theta, double *V)
 {
-	int s = w->bstart[b], m = w->blen[b], K = w->nk;
-	const double *B = w->basis + (size_t)K * w->loff[b];
+	int s = w->bstart[b], m = w->blen[b];
+	const double *f = w->f + s;
+	const int *eg = w->eg ? w->eg + s : NULL;
+	double tau2 = 0, cov = 0, slope = 0, sig2 = 0;
+
+	for (int k = 0; k < w->nk; k++)
+		switch (w->kind[k]) {
+		case MR_K_TAU2: tau2 = theta[k]; break;
+		case MR_K_COV: cov = theta[k]; break;
+		case MR_K_SLOPE: slope = theta[k]; break;
+		case MR_K_SIGMA2: sig2 = theta[k]; break;
+		}
 	for (int a = 0; a < m; a++)
-		for (int c = 0; c < m; c++) {
-			double x = a == c ? w->v[s + a] : 0;
-			for (int k = 0; k < K; k++)
-				x += theta[k] * B[((size_t)k * m + a) * m + c];
-			V[a * m + c] = x;
+		for (int c = a; c < m; c++) {
+			double x = tau2 + cov * (f[a] + f[c]) + slope * f[a] * f[c];
+			if (eg && eg[a] == eg[c])
+				x += sig2;
+			if (a == c)
+				x += w->v[s + a];
+			V[a * m + c] = V[c * m + a] = x;
 		}
 }
 
@@ -362,75 +380,6 @@ void mr_work_view(const struct mr_work *w, int b, struct mr_blockview *out)
 	out->f = w->f + s;
 	out->X = w->X + (size_t)s * p;
 	out->WX = w->WX + (size_t)s * p;
-	out->L = w->L + w->loff[b];
+	out->W = w->W + w->loff[b];
 	out->q = w->q + s;
-}
-
-static double trace_prod(const double *A, const double *B, int p)   /* tr(A B) */
-{
-	double t = 0;
-	for (int i = 0; i < p; i++)
-		for (int j = 0; j < p; j++)
-			t += A[i * p + j] * B[j * p + i];
-	return t;
-}
-
-void mr_start(struct mr_work *w, double *theta)
-{
-	int p = w->p, K = w->nk, n = w->n_act;
-	double xtx[MR_MAXP * MR_MAXP] = {0}, xty[MR_MAXP] = {0}, x2[MR_MAXP * MR_MAXP] = {0};
-	double beta[MR_MAXP], sw = 0, q = 0, fm = 0, f2 = 0;
-
-	/* Fixed-effect weighted least squares, then Q and tr(P0): the method-of-moments estimate
-	 * of DerSimonian & Laird (1986) in its meta-regression form, only as a starting point. */
-	for (int b = 0; b < w->nb; b++) {
-		if (b == w->excl)
-			continue;
-		for (int i = w->bstart[b]; i < w->bstart[b] + w->blen[b]; i++) {
-			const double *x = w->X + (size_t)i * p;
-			double wi = 1 / w->v[i];
-			sw += wi;
-			fm += w->f[i];
-			f2 += w->f[i] * w->f[i];
-			for (int j = 0; j < p; j++) {
-				xty[j] += wi * x[j] * w->y[i];
-				for (int k = 0; k < p; k++) {
-					xtx[j * p + k] += wi * x[j] * x[k];
-					x2[j * p + k] += wi * wi * x[j] * x[k];
-				}
-			}
-		}
-	}
-	double tot = 0.1 * w->vscale;
-	gsl_matrix_view A = gsl_matrix_view_array(xtx, p, p);
-	gsl_vector_view bv = gsl_vector_view_array(beta, p);
-	gsl_vector_view yv = gsl_vector_view_array(xty, p);
-	if (!gsl_linalg_cholesky_decomp1(&A.matrix) &&
-	    !gsl_linalg_cholesky_solve(&A.matrix, &yv.vector, &bv.vector) &&
-	    !gsl_linalg_cholesky_invert(&A.matrix)) {
-		for (int b = 0; b < w->nb; b++) {
-			if (b == w->excl)
-				continue;
-			for (int i = w->bstart[b]; i < w->bstart[b] + w->blen[b]; i++) {
-				double r = w->y[i];
-				for (int j = 0; j < p; j++)
-					r -= w->X[(size_t)i * p + j] * beta[j];
-				q += r * r / w->v[i];
-			}
-		}
-		double trp = sw - trace_prod(xtx, x2, p);
-		if (trp > 0 && (q - (n - p)) / trp > tot)
-			tot = (q - (n - p)) / trp;
-	}
-	int nlev = 1 + (w->d->effect != NULL);
-	fm /= n;
-	double fvar = f2 / n - fm * fm;
-	for (int k = 0; k < K; k++) {
-		switch (w->kind[k]) {
-		case MR_K_TAU2: theta[k] = tot / nlev / (w->d->slope_col >= 0 ? 2 : 1); break;
-		case MR_K_COV: theta[k] = 0; break;
-		case MR_K_SLOPE: theta[k] = tot / nlev / 2 / (fvar > 0 ? fvar : 1); break;
-		case MR_K_SIGMA2: theta[k] = tot / nlev; break;
-		}
-	}
 }
