@@ -4,41 +4,64 @@ DESTDIR ?=
 BINDIR   = $(PREFIX)/bin
 MANDIR   = $(PREFIX)/share/man/man1
 DATADIR  = $(PREFIX)/share/setdose
+LIBDIR   = $(PREFIX)/lib/setdose
 
 CC      ?= cc
 B       ?= build
 OPT     ?= -O2 -g
 SAN     ?=
-PKGS     = ncursesw sqlite3 gsl cairo libcjson
+PKGS     = ncursesw sqlite3 gsl libcjson
+MOD_PKGS = cairo fontconfig
 DEPS_DEB = build-essential pkg-config libncurses-dev libsqlite3-dev libiniparser-dev libgsl-dev \
            libcairo2-dev libcmocka-dev libcjson-dev tmux sqlite3 valgrind poppler-utils clang
 
-PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS) 2>/dev/null)
-# Libraries whose Debian -dev package ships an archive are linked statically: every command is
-# a short-lived process, and loading and binding some twenty shared objects (cairo alone pulls in
-# pixman, freetype, fontconfig, png and the X11 client libraries) took longer than a whole audit.
-# cJSON ships no archive and stays shared (glibc itself provides what libXdmcp once took from
-# libbsd).
-STATIC_LIBS = -lsqlite3 -lgsl -lgslcblas -liniparser -lncursesw -ltinfo \
-              -lcairo -lpixman-1 -lfontconfig -lexpat -lfreetype -lpng16 -lz -lbrotlidec \
-              -lbrotlicommon -lxcb-shm -lxcb-render -lXrender -lXext -lX11 -lxcb -lXau -lXdmcp
-PKG_LIBS   := -Wl,-Bstatic $(STATIC_LIBS) -Wl,-Bdynamic -lcjson -lpthread -ldl
-CFLAGS_ALL  = -std=c11 -D_GNU_SOURCE -Wall -Wextra -Werror \
-              -Wshadow -Wno-format-truncation -MMD -MP $(OPT) $(SAN) $(PKG_CFLAGS) \
-              -DSD_DATADIR='"$(DATADIR)"' $(CFLAGS)
+# Every flag that asks pkg-config or dpkg-buildflags is a recursive (=) variable, evaluated when a
+# recipe first uses it: `make deps demo` installs the packages before anything asks for their
+# flags, so a fresh machine builds in one invocation.
+# once = $(eval ...) computes the value at first use and keeps it for the rest of the run.
+PKG_CFLAGS  = $(eval PKG_CFLAGS := $(shell pkg-config --cflags $(PKGS) $(MOD_PKGS) 2>/dev/null))$(PKG_CFLAGS)
+PKG_LIBS    = $(eval PKG_LIBS := $(shell pkg-config --libs $(PKGS) 2>/dev/null) -liniparser -ldl)$(PKG_LIBS)
+MOD_LIBS    = $(eval MOD_LIBS := $(shell pkg-config --libs $(MOD_PKGS) 2>/dev/null))$(MOD_LIBS)
+
+# Hardened as Debian packages are (dpkg-buildflags, hardening=+all): stack protector, fortify,
+# format-security, RELRO with immediate binding; position-independent code and executable.
+# Shared system libraries, so a security update of SQLite, libpng or cairo reaches setdose;
+# --as-needed keeps only the libraries the binary really calls. HARDEN= (empty) builds without
+# the dpkg flags (for a machine without dpkg-dev); nothing else turns the protections off.
+HARDEN     ?= 1
+DPKG_FLAGS  = DEB_BUILD_MAINT_OPTIONS=hardening=+all dpkg-buildflags
+HARD_CFLAGS = $(eval HARD_CFLAGS := $(if $(HARDEN),$(filter-out -O% -g -ffile-prefix-map=%,\
+                $(shell $(DPKG_FLAGS) --get CFLAGS 2>/dev/null) \
+                $(shell $(DPKG_FLAGS) --get CPPFLAGS 2>/dev/null))))$(HARD_CFLAGS)
+HARD_LDFLAGS = $(eval HARD_LDFLAGS := $(if $(HARDEN),$(shell $(DPKG_FLAGS) --get LDFLAGS 2>/dev/null)))$(HARD_LDFLAGS)
+
+# Warnings: the same set for gcc and clang. -Werror only when asked (WERROR=1, as CI does), so a
+# newer compiler's new warning does not stop a user's build.
+WERROR     ?=
+WARN        = -Wall -Wextra -Wshadow $(if $(WERROR),-Werror) $(WARN_CC)
+WARN_CC     = $(eval WARN_CC := $(if $(findstring clang,$(shell $(CC) --version 2>/dev/null | head -n 1)),,\
+                -Wno-format-truncation))$(WARN_CC)
+CFLAGS_ALL  = -std=c11 -D_GNU_SOURCE $(WARN) -fPIC -MMD -MP $(OPT) $(HARD_CFLAGS) $(SAN) \
+              $(PKG_CFLAGS) -DSD_DATADIR='"$(DATADIR)"' -DSD_LIBDIR='"$(LIBDIR)"' $(CFLAGS)
+LDFLAGS_ALL = -pie -Wl,--as-needed $(HARD_LDFLAGS) $(LDFLAGS)
 LDLIBS_ALL  = $(PKG_LIBS) -lm $(LDLIBS)
 
-SRC   := $(sort $(wildcard src/core/*.c src/io/*.c src/store/*.c src/cmd/*.c src/tui/*.c src/plot/*.c))
+# src/plot/chart.c is the chart module (plot/chart_mod.h), loaded only when a chart is drawn.
+MODSRC = src/plot/chart.c
+SRC   := $(filter-out $(MODSRC),$(sort $(wildcard src/core/*.c src/io/*.c src/store/*.c src/cmd/*.c \
+         src/tui/*.c src/plot/*.c)))
 OBJ   := $(SRC:src/%.c=$(B)/obj/%.o)
+COREOBJ := $(filter $(B)/obj/core/% $(B)/obj/io/%,$(OBJ))
+MOD    = $(B)/lib/setdose/chart.so
 TSRC  := $(sort $(wildcard tests/test_*.c))
 TBIN  := $(TSRC:tests/%.c=$(B)/tests/%)
 BSRC  := $(sort $(wildcard tests/bench/bench_*.c))
 BBIN  := $(BSRC:tests/bench/%.c=$(B)/bench/%)
 
 .PHONY: all deps check unit unit-asan cli cli-asan tui-test demo bench install uninstall clean help \
-        fuzz fuzz-build fuzz-replay
+        fuzz fuzz-build fuzz-replay check-plain check-asan FORCE
 
-all: $(B)/setdose
+all: $(B)/setdose $(MOD)
 
 help:
 	@echo "targets: deps all check demo bench install uninstall clean (PREFIX=$(PREFIX) DESTDIR=$(DESTDIR))"
@@ -47,16 +70,28 @@ deps:
 	@if dpkg -s $(DEPS_DEB) >/dev/null 2>&1; then echo "deps: all packages present"; \
 	else apt-get update && DEBIAN_FRONTEND=noninteractive apt-get install -y --no-install-recommends $(DEPS_DEB); fi
 
-# The command is linked as a fixed-address executable: a position-independent one spends
-# its start-up applying some six thousand relocations to the statically linked libraries,
-# about a seventh of a whole audit on this machine class (make bench). Shared libraries and
-# the stack are still randomised.
 $(B)/setdose: $(B)/obj/main.o $(OBJ)
-	$(CC) $(OPT) $(SAN) -no-pie -o $@ $^ $(LDLIBS_ALL)
+	$(CC) $(OPT) $(SAN) $(LDFLAGS_ALL) -o $@ $^ $(LDLIBS_ALL)
+
+# The module carries its own copy of the core code it calls (from an archive, so only what it
+# uses); the executable exports nothing, so neither binds to the other's copy.
+$(MOD): $(B)/obj/plot/chart.o $(B)/obj/plot/chart_fmt.o $(B)/libcore.a
+	@mkdir -p $(dir $@)
+	$(CC) $(OPT) $(SAN) -shared -Wl,--as-needed $(HARD_LDFLAGS) $(LDFLAGS) -Wl,--no-undefined -o $@ $^ $(MOD_LIBS) $(PKG_LIBS) -lm
+$(B)/libcore.a: $(COREOBJ)
+	rm -f $@ && ar rcs $@ $^
 
 $(B)/obj/%.o: src/%.c
 	@mkdir -p $(dir $@)
 	$(CC) $(CFLAGS_ALL) -c -o $@ $<
+
+# The files that compile in an installation folder are rebuilt when PREFIX changes, so
+# `make install PREFIX=/usr` never installs a binary that looks in /usr/local.
+$(B)/prefix.stamp: FORCE
+	@mkdir -p $(B)
+	@echo '$(DATADIR) $(LIBDIR)' | cmp -s - $@ || echo '$(DATADIR) $(LIBDIR)' >$@
+$(B)/obj/main.o $(B)/obj/plot/chart_load.o: $(B)/prefix.stamp
+FORCE:
 
 # The schema migrations db/NNN_*.sql are compiled in (db/embed.sh): the binary needs no SQL files.
 $(B)/gen/schema.h: db/embed.sh $(sort $(wildcard db/0*.sql))
@@ -67,25 +102,32 @@ $(B)/obj/store/migrate.o: CFLAGS_ALL += -I$(B)/gen
 
 $(B)/tests/%: tests/%.c $(OBJ) tests/testutil.h
 	@mkdir -p $(dir $@)
-	$(CC) $(CFLAGS_ALL) -Isrc -o $@ $< $(OBJ) $(LDLIBS_ALL) -lcmocka
+	$(CC) $(CFLAGS_ALL) $(LDFLAGS_ALL) -Isrc -o $@ $< $(OBJ) $(LDLIBS_ALL) -lcmocka
 
 $(B)/bench/%: tests/bench/%.c $(OBJ)
 	@mkdir -p $(dir $@)
-	$(CC) $(CFLAGS_ALL) -Isrc -o $@ $< $(OBJ) $(LDLIBS_ALL)
+	$(CC) $(CFLAGS_ALL) $(LDFLAGS_ALL) -Isrc -o $@ $< $(OBJ) $(LDLIBS_ALL)
 
-# Unit tests (cmocka), the command-line tests against the real binary, then the same unit and
-# command-line tests built with AddressSanitizer + UndefinedBehaviorSanitizer, then the tmux
-# tests of the full-screen interface.  The last line is the total: "N passed, N failed".
+# Unit tests (cmocka) and the command-line tests against the real binary, once as built and once
+# with AddressSanitizer + UndefinedBehaviorSanitizer (in $(B)/asan), the two side by side
+# (make -j2: they share nothing but the results file, appended a line at a time); then the tmux
+# tests of the full-screen interface and the fuzz replay, alone, as they watch the clock.
+# The last line is the total: "N passed, N failed".
+ASAN_B = $(B)/asan
 check:
 	@rm -f $(B)/results.txt
 	@mkdir -p $(B)
-	$(MAKE) unit cli || echo "make unit cli failed" >>$(B)/results.txt
-	$(MAKE) B=build/asan OPT='-O1 -g -fno-omit-frame-pointer' \
-	    SAN='-fsanitize=address,undefined -fno-sanitize-recover=all' unit cli \
-	    RESULTS=$(CURDIR)/$(B)/results.txt || echo "make asan unit cli failed" >>$(B)/results.txt
+	-$(MAKE) -j2 --no-print-directory check-plain check-asan
 	$(MAKE) tui-test || echo "make tui-test failed" >>$(B)/results.txt
 	$(MAKE) fuzz-replay || echo "make fuzz-replay failed" >>$(B)/results.txt
 	@sh tests/summary.sh $(B)/results.txt
+
+check-plain:
+	$(MAKE) unit cli RESULTS=$(CURDIR)/$(B)/results.txt || echo "make unit cli failed" >>$(B)/results.txt
+check-asan:
+	$(MAKE) B=$(ASAN_B) OPT='-O1 -g -fno-omit-frame-pointer' \
+	    SAN='-fsanitize=address,undefined -fno-sanitize-recover=all' unit cli \
+	    RESULTS=$(CURDIR)/$(B)/results.txt || echo "make asan unit cli failed" >>$(B)/results.txt
 
 RESULTS ?= $(CURDIR)/$(B)/results.txt
 export ASAN_OPTIONS = detect_leaks=1:abort_on_error=1
@@ -96,11 +138,11 @@ unit: $(TBIN)
 	@mkdir -p $(dir $(RESULTS))
 	@sh tests/run_unit.sh $(RESULTS) $(TBIN)
 
-cli: $(B)/setdose
+cli: $(B)/setdose $(MOD)
 	@mkdir -p $(dir $(RESULTS))
 	@sh tests/cli/run.sh $(RESULTS) $(CURDIR)/$(B)/setdose $(T)
 
-tui-test: $(B)/setdose
+tui-test: $(B)/setdose $(MOD)
 	@mkdir -p $(dir $(RESULTS))
 	@if ls tests/tui/t_*.sh >/dev/null 2>&1; then sh tests/tui/run.sh $(RESULTS) $(CURDIR)/$(B)/setdose; fi
 
@@ -154,15 +196,17 @@ fuzz-replay:
 	    done; \
 	else echo "fuzz replay: no clang; the corpus is replayed through setdose by tests/cli/t_fuzzcorpus.sh"; fi
 
-demo: $(B)/setdose
+demo: $(B)/setdose $(MOD)
 	@sh tests/demo.sh $(CURDIR)/$(B)/setdose
 
-bench: $(B)/setdose $(BBIN)
+bench: $(B)/setdose $(MOD) $(BBIN)
 	@sh tests/bench/run.sh $(CURDIR)/$(B)/setdose $(CURDIR)/$(B)/bench
 
-install: $(B)/setdose
+install: $(B)/setdose $(MOD) $(MOD)
 	install -d $(DESTDIR)$(BINDIR) $(DESTDIR)$(MANDIR) $(DESTDIR)$(DATADIR)
 	install -m 755 $(B)/setdose $(DESTDIR)$(BINDIR)/setdose
+	install -d $(DESTDIR)$(LIBDIR)
+	install -m 644 $(MOD) $(DESTDIR)$(LIBDIR)/chart.so
 	install -m 644 man/setdose.1 $(DESTDIR)$(MANDIR)/setdose.1
 	install -m 644 profiles/*.ini $(DESTDIR)$(DATADIR)/
 	if ls profiles/*.csv >/dev/null 2>&1; then install -m 644 profiles/*.csv $(DESTDIR)$(DATADIR)/; fi
@@ -170,9 +214,9 @@ install: $(B)/setdose
 
 uninstall:
 	rm -f $(DESTDIR)$(BINDIR)/setdose $(DESTDIR)$(MANDIR)/setdose.1
-	rm -rf $(DESTDIR)$(DATADIR)
+	rm -rf $(DESTDIR)$(DATADIR) $(DESTDIR)$(LIBDIR)
 
 clean:
 	rm -rf build
 
--include $(OBJ:.o=.d) $(B)/obj/main.d
+-include $(OBJ:.o=.d) $(B)/obj/main.d $(B)/obj/plot/chart.d

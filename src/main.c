@@ -250,7 +250,7 @@ int main(int argc, char **argv)
 	if (extract_globals(&argc, argv, &ctx.opt, &want_version, &want_help, &err))
 		goto fail;
 	if (want_version) {
-		printf("setdose %s\n", SD_VERSION);
+		printf("setdose %s (database schema %d)\n", SD_VERSION, db_schema_latest());
 		goto done;
 	}
 	if (argc < 2) {

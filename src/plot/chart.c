@@ -1,4 +1,5 @@
 #include "chart.h"
+#include "chart_mod.h"
 
 #include <math.h>
 #include <stdio.h>
@@ -20,27 +21,6 @@
 #define BAND_CI 0.78, 0.71, 0.56
 #define CURVE 0.05, 0.45, 0.47
 #define MARK 0.70, 0.25, 0.15
-
-enum fmt { FMT_NONE, FMT_PNG, FMT_SVG, FMT_PDF };
-
-static enum fmt format_of(const char *path)
-{
-	const char *dot = strrchr(path, '.');
-	if (!dot)
-		return FMT_NONE;
-	if (!strcasecmp(dot, ".png"))
-		return FMT_PNG;
-	if (!strcasecmp(dot, ".svg"))
-		return FMT_SVG;
-	if (!strcasecmp(dot, ".pdf"))
-		return FMT_PDF;
-	return FMT_NONE;
-}
-
-int chart_format_ok(const char *path)
-{
-	return format_of(path) != FMT_NONE;
-}
 
 struct frame {
 	double x, y, w, h;        /* plot area in device units */
@@ -303,7 +283,7 @@ static cairo_status_t write_cb(void *closure, const unsigned char *data, unsigne
 	return CAIRO_STATUS_SUCCESS;
 }
 
-static int finish(cairo_surface_t *s, cairo_t *cr, const char *name, enum fmt fmt,
+static int finish(cairo_surface_t *s, cairo_t *cr, const char *name, enum chart_fmt fmt,
 		  struct stream *out, struct sd_err *e)
 {
 	cairo_status_t st = cairo_status(cr);
@@ -325,7 +305,7 @@ static int finish(cairo_surface_t *s, cairo_t *cr, const char *name, enum fmt fm
 	return 0;
 }
 
-static cairo_surface_t *surface(enum fmt fmt, struct stream *out, double w, double h)
+static cairo_surface_t *surface(enum chart_fmt fmt, struct stream *out, double w, double h)
 {
 	switch (fmt) {
 	case FMT_PNG: return cairo_image_surface_create(CAIRO_FORMAT_RGB24, (int)w, (int)h);
@@ -336,7 +316,7 @@ static cairo_surface_t *surface(enum fmt fmt, struct stream *out, double w, doub
 }
 
 /* A surface ready to draw on, or -1 with e filled. */
-static int start(enum fmt fmt, const char *name, struct stream *out, double w, double h,
+static int start(enum chart_fmt fmt, const char *name, struct stream *out, double w, double h,
 		 cairo_surface_t **s, struct sd_err *e)
 {
 	*s = surface(fmt, out, w, h);
@@ -349,10 +329,10 @@ static int start(enum fmt fmt, const char *name, struct stream *out, double w, d
 	return 0;
 }
 
-int chart_write(const char *name, const struct sd_chart *c, chart_sink_fn sink, void *closure,
+static int mod_chart_write(const char *name, const struct sd_chart *c, chart_sink_fn sink, void *closure,
 		struct sd_err *e)
 {
-	enum fmt fmt = format_of(name);
+	enum chart_fmt fmt = chart_format(name);
 	double w = 900, h = 572;
 	char buf[300];
 	struct stream out = { sink, closure, 0 };
@@ -479,7 +459,7 @@ static void report_page(cairo_t *cr, const struct sd_audit_info *in, double w)
 	para(cr, 40, 802, w - 80, 8, aout_caution);
 }
 
-int report_write(const char *name, const struct sd_audit_info *in, int n, chart_sink_fn sink,
+static int mod_report_write(const char *name, const struct sd_audit_info *in, int n, chart_sink_fn sink,
 		 void *closure, struct sd_err *e)
 {
 	double w = 595.276, h = 841.89;  /* A4 in points */
@@ -487,7 +467,7 @@ int report_write(const char *name, const struct sd_audit_info *in, int n, chart_
 	cairo_surface_t *s;
 	cairo_t *cr;
 
-	if (format_of(name) != FMT_PDF)
+	if (chart_format(name) != FMT_PDF)
 		return sd_usage(e, "the report is a PDF: name it .pdf, not '%s'", name);
 	if (start(FMT_PDF, name, &out, w, h, &s, e))
 		return -1;
@@ -500,3 +480,8 @@ int report_write(const char *name, const struct sd_audit_info *in, int n, chart_
 	}
 	return finish(s, cr, name, FMT_PDF, &out, e);
 }
+
+/* The module's one exported symbol (chart_mod.h). */
+const struct sd_chart_api sd_chart_api = {
+	SD_CHART_API_VERSION, mod_chart_write, mod_report_write,
+};

@@ -16,7 +16,7 @@ for t in "$ROOT"/tests/cli/t_*.sh; do
 	    XDG_DATA_HOME="$TMP/data" SETDOSE_DB="$TMP/test.db" NO_COLOR=1 &&
 	  . "$ROOT/tests/cli/lib.sh" && . "$t" ) || echo "cli $T: script exited early failed" >>"$RESULTS"
 	after=$(grep -c ' failed$' "$RESULTS" 2>/dev/null || true)
-	[ "$after" = "$before" ] || fail=1
+	[ "${after:-0}" = "${before:-0}" ] || fail=1
 	rm -rf "$TMP"
 done
 echo "cli: $(grep -c '^cli .* passed$' "$RESULTS") checks passed, $(grep -c '^cli .* failed$' "$RESULTS") failed so far"

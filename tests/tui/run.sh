@@ -49,7 +49,7 @@ WRAP=
 
 # The same tests with the sanitizer build: every report goes to a log file, and there
 # must be none.
-ASAN_SD=$ROOT/build/asan/setdose
+ASAN_SD=$(dirname "$SD")/asan/setdose
 case "$SD" in
 */asan/*) ;;
 *)
