@@ -48,7 +48,7 @@ LDLIBS_ALL  = $(PKG_LIBS) -lm $(LDLIBS)
 
 # src/plot/chart.c is the chart module (plot/chart_mod.h), loaded only when a chart is drawn.
 MODSRC = src/plot/chart.c
-SRC   := $(filter-out $(MODSRC),$(sort $(wildcard src/core/*.c src/io/*.c src/store/*.c src/cmd/*.c \
+SRC   := $(filter-out $(MODSRC),$(sort $(wildcard src/core/*.c src/app/*.c src/io/*.c src/store/*.c src/cmd/*.c \
          src/tui/*.c src/plot/*.c)))
 OBJ   := $(SRC:src/%.c=$(B)/obj/%.o)
 COREOBJ := $(filter $(B)/obj/core/% $(B)/obj/io/%,$(OBJ))

@@ -10,6 +10,7 @@
 #include <unistd.h>
 
 #include "cmd/cmd.h"
+#include "core/limits.h"
 #include "io/library_io.h"
 #include "io/profile_io.h"
 #include "store/db.h"
@@ -66,7 +67,7 @@ static int apply(struct sd_opts *o, const char *name, const char *v, int *want_v
 		o->status_set = 1;
 		o->trained = !strcmp(v, "trained");
 	} else if (!strcmp(name, "weeks")) {
-		if (parse_number(name, v, 1, 104, &o->weeks, e))
+		if (parse_number(name, v, SD_WEEKS_MIN, SD_WEEKS_MAX, &o->weeks, e))
 			return -1;
 		o->weeks_set = 1;
 	} else if (!strcmp(name, "level")) {

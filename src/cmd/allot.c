@@ -16,7 +16,7 @@
 #include "../io/allot_out.h"
 #include "../io/program_write.h"
 #include "dbutil.h"
-#include "progarg.h"
+#include "../app/progarg.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_allot;
@@ -117,7 +117,7 @@ static int opt_budget(struct allot_args *a, const char *arg, struct sd_err *e)
 	double x = strtod(arg, &end);
 	if (end != arg && !*end && x <= 0)
 		return sd_usage(e, "--budget must be at least 1 set, not '%s'", arg);
-	return dbu_int("--budget", arg, 1, MAX_BUDGET, &a->budget, e);
+	return app_int("--budget", arg, 1, MAX_BUDGET, &a->budget, e);
 }
 
 static int opt_priority(struct allot_args *a, const char *arg, struct sd_err *e)
@@ -174,7 +174,7 @@ static const struct allot_opt opts[] = {
 	{ "effort", OPT_CALL, 0, 0, 0, opt_effort },
 	{ "candidates", OPT_STR, 0, 0, ARG(candidates), NULL },
 	{ "from", OPT_STR, 0, 0, ARG(from), NULL },
-	{ "session-cap", OPT_NUM, 0.5, 100, ARG(cap), NULL },
+	{ "session-cap", OPT_NUM, SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX, ARG(cap), NULL },
 	{ "write", OPT_STR, 0, 0, ARG(write), NULL },
 	{ "force", OPT_FLAG, 0, 0, ARG(force), NULL },
 	{ "explain", OPT_FLAG, 0, 0, ARG(explain), NULL },
@@ -194,9 +194,9 @@ static int set_opt(const struct allot_opt *o, struct allot_args *a, const char *
 	snprintf(what, sizeof what, "--%s", o->name);
 	switch (o->kind) {
 	case OPT_INT:
-		return dbu_int(what, arg, (long long)o->lo, (long long)o->hi, field, e);
+		return app_int(what, arg, (long long)o->lo, (long long)o->hi, field, e);
 	case OPT_NUM:
-		return dbu_num(what, arg, o->lo, o->hi, field, e);
+		return app_num(what, arg, o->lo, o->hi, field, e);
 	case OPT_STR:
 		*(const char **)field = arg;
 		return 0;
@@ -343,7 +343,7 @@ static int muscle_limits(const struct sd_ctx *ctx, struct plan *pl, struct sd_er
 	const struct allot_args *a = &pl->a;
 	double evid = ctx->profile.dose_max, room = pl->N * a->cap;
 	struct allot_problem *p = &pl->prob;
-	struct sd_covars cov = cmd_covars(ctx, pl->have_from ? pl->from.weeks : 0);
+	struct sd_covars cov = app_covars(ctx, pl->have_from ? pl->from.weeks : 0);
 
 	pl->threshold = curve_plateau(&ctx->profile, &cov, 1.0);
 	for (int m = 0; m < SD_NMUSCLES; m++) {
@@ -481,7 +481,7 @@ static int build_problem(struct sd_ctx *ctx, struct plan *pl, struct sd_err *e)
 	p->max_exercises = X;
 	p->form = ctx->profile.form;
 	/* The dose slope for this athlete's status and block length ("m:dose" terms included). */
-	struct sd_covars cov = cmd_covars(ctx, pl->have_from ? pl->from.weeks : 0);
+	struct sd_covars cov = app_covars(ctx, pl->have_from ? pl->from.weeks : 0);
 	p->b_dose = curve_dose_coef(&ctx->profile, &cov);
 	p->node_limit = a->node_limit;
 	p->tolerance = a->tolerance;
@@ -538,7 +538,7 @@ static int build_program(struct plan *pl, const struct sd_library *lib, int week
 
 static int lay_out(struct sd_ctx *ctx, struct plan *pl, struct sd_err *e)
 {
-	struct sd_covars cov = cmd_covars(ctx, pl->have_from ? pl->from.weeks : 0);
+	struct sd_covars cov = app_covars(ctx, pl->have_from ? pl->from.weeks : 0);
 	int weeks = cov.weeks == floor(cov.weeks) ? (int)cov.weeks : 0;
 	struct sd_audit_opts ao = { ctx->opt.level, ctx->opt.max_rir, pl->a.cap };
 
@@ -600,7 +600,7 @@ static void notes(struct plan *pl)
 static int explain(struct sd_ctx *ctx, struct plan *pl, struct sd_err *e)
 {
 	const char *names[ALLOT_MAX_CAND + 1];
-	struct sd_covars cov = cmd_covars(ctx, pl->have_from ? pl->from.weeks : 0);
+	struct sd_covars cov = app_covars(ctx, pl->have_from ? pl->from.weeks : 0);
 
 	/* The rules and limits need a budget; any that fits them will do for showing them. */
 	if (pl->a.budget < 0 && pl->a.minutes < 0)

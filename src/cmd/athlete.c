@@ -50,7 +50,7 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 
 	if (parse_opts(argc, argv, &notes, &rename, 0, e))
 		return -1;
-	if (dbu_name("athlete", argv[optind], DB_NAME_MAX, e))
+	if (app_name("athlete", argv[optind], DB_NAME_MAX, e))
 		return -1;
 	memset(&a, 0, sizeof a);
 	snprintf(a.name, sizeof a.name, "%s", argv[optind]);
@@ -72,9 +72,9 @@ static int do_edit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 
 	if (parse_opts(argc, argv, &notes, &rename, 1, e))
 		return -1;
-	if (rename && dbu_name("athlete", rename, DB_NAME_MAX, e))
+	if (rename && app_name("athlete", rename, DB_NAME_MAX, e))
 		return -1;
-	if (db_begin(ctx->db, e) || db_athlete_get(ctx->db, argv[optind], &a, e))
+	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[optind], &a, e))
 		return -1;
 	if (rename)
 		snprintf(a.name, sizeof a.name, "%s", rename);
@@ -144,13 +144,13 @@ static int do_show(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 
 	if (argc != 2)
 		return usage(e);
-	if (db_athlete_get(ctx->db, argv[1], &a, e) || db_block_list(ctx->db, a.id, &b, &nb, e))
+	if (app_athlete_get(ctx->db, argv[1], &a, e) || db_block_list(ctx->db, a.id, &b, &nb, e))
 		return -1;
 	if (db_test_list(ctx->db, a.id, NULL, &t, &nt, e)) {
 		free(b);
 		return -1;
 	}
-	lb = dbu_lb(ctx, &a);
+	lb = app_lb(ctx, &a);
 	if (ctx->opt.format != SD_FMT_TABLE) {
 		/* Machine-readable detail is in 'block list' and 'test list'; this is the card. */
 		static const char *const heads[] = { "<name", "<status", "<units", "blocks", "tests",
@@ -219,7 +219,7 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	}
 	if (optind != argc - 1)
 		return usage(e);
-	if (db_begin(ctx->db, e) || db_athlete_get(ctx->db, argv[optind], &a, e) ||
+	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[optind], &a, e) ||
 	    db_athlete_refs(ctx->db, a.id, &nb, &nt, e))
 		return -1;
 	if ((nb || nt) && !cascade)

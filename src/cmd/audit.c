@@ -27,10 +27,10 @@ static int one(struct sd_ctx *ctx, const struct audit_args *a, const char *path,
 
 	if (program_load(path, &ctx->lib, &prog, e))
 		return -1;
-	struct sd_covars cov = cmd_covars(ctx, prog.weeks);
+	struct sd_covars cov = app_covars(ctx, prog.weeks);
 	if (audit_run(&prog, &ctx->lib, &ctx->profile, &cov, &o, &au, e))
 		goto out;
-	struct sd_audit_info in = { path, &prog, &ctx->profile, &au, NULL };
+	struct sd_audit_info in = { path, &prog, &ctx->profile, &au, NULL, 0 };
 	if (ctx->opt.format == SD_FMT_JSON)
 		rc = aout_json_item(ctx->out, &in, first);
 	else if (a->summary) {
@@ -77,8 +77,8 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 			break;
 		case 'c':
 			a.cap = strtod(optarg, &end);
-			if (end == optarg || *end || !(a.cap > 0 && a.cap <= 100))
-				return sd_usage(e, "--session-cap wants a number from 0 to 100, not '%s'", optarg);
+			if (end == optarg || *end || !(a.cap >= SD_SESSION_CAP_MIN && a.cap <= SD_SESSION_CAP_MAX))
+				return sd_usage(e, "--session-cap wants a number from %g to %g, not '%s'", SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX, optarg);
 			break;
 		default:
 			return sd_usage(e, "usage: setdose %s", cmd_audit.usage);

@@ -8,6 +8,7 @@
 #include "dbutil.h"
 
 #define CACHE_MAX 256   /* distinct (template, status, weeks) audits kept at once */
+#define OVERDUE_SHOWN 20 /* overdue blocks named under the table; the rest are counted */
 
 struct entry {
 	long long program_id;
@@ -24,6 +25,9 @@ struct walk {
 	struct sd_sumout so;
 	struct entry *cache;
 	int n, first;
+	char today[DATE_LEN];
+	long long noverdue;
+	char overdue[OVERDUE_SHOWN][DB_NAME_MAX + 160];  /* notes under the table */
 	struct sd_err *e;
 };
 
@@ -51,7 +55,7 @@ static struct entry *lookup(struct walk *w, const struct db_block *b)
 	if (db_program_get_id(w->db, b->program_id, &p, w->e))
 		return NULL;
 	x = &w->cache[w->n];
-	if (dbu_block_audit(w->ctx, b, &p, w->cap, &x->prog, &x->au, w->e)) {
+	if (app_block_audit(w->ctx, b, &p, w->cap, &x->prog, &x->au, w->e)) {
 		db_program_free(&p);
 		return NULL;
 	}
@@ -71,7 +75,12 @@ static int one_block(const struct db_block *b, void *arg)
 
 	if (!x)
 		return -1;
-	struct sd_audit_info in = { x->name, &x->prog, &w->ctx->profile, &x->au, b->athlete };
+	struct sd_audit_info in = { x->name, &x->prog, &w->ctx->profile, &x->au, b->athlete,
+				    app_block_overdue(b, w->today) };
+	if (in.overdue_days && w->noverdue++ < OVERDUE_SHOWN)
+		snprintf(w->overdue[w->noverdue - 1], sizeof w->overdue[0],
+			 "block %lld of '%s' is open %d days past its planned end; end it with "
+			 "'setdose block end %lld'", b->id, b->athlete, in.overdue_days, b->id);
 	if (w->ctx->opt.format == SD_FMT_JSON) {
 		if (aout_json_item(w->ctx->out, &in, w->first))
 			return sd_fail(w->e, "out of memory");
@@ -91,15 +100,17 @@ int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
 	int wa, wp, rc = -1;
 
 	memset(&w, 0, sizeof w);
+	w.e = e;
 	if (!ctx->db) {
-		if (dbu_path(ctx, path, sizeof path, e) || db_open(path, &own, e))
+		if (app_db_path(ctx, path, sizeof path, e) || db_open(path, &own, e))
 			return -1;
 	}
 	w.ctx = ctx;
 	w.db = own ? own : ctx->db;
 	w.cap = session_cap;
 	w.first = 1;
-	w.e = e;
+	if (app_today(w.today, e))
+		goto done;
 	w.cache = calloc(CACHE_MAX, sizeof *w.cache);
 	if (!w.cache) {
 		sd_fail(e, "out of memory");
@@ -119,8 +130,14 @@ int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
 		goto done;
 	if (ctx->opt.format == SD_FMT_JSON)
 		aout_json_end(ctx->out);
-	else if (nopen)
+	else if (nopen && ctx->opt.format == SD_FMT_TABLE) {
+		for (long long i = 0; i < w.noverdue && i < OVERDUE_SHOWN; i++)
+			fprintf(ctx->out, "%snote: %s\n", i ? "" : "\n", w.overdue[i]);
+		if (w.noverdue > OVERDUE_SHOWN)
+			fprintf(ctx->out, "note: %lld more open blocks past their planned end ('setdose "
+				"block list')\n", w.noverdue - OVERDUE_SHOWN);
 		cmd_print_caution(ctx);
+	}
 	rc = 0;
 done:
 	if (w.cache)

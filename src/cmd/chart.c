@@ -55,7 +55,7 @@ static int exec_chart(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	struct sd_program prog;
 	struct sd_audit au;
 	struct sd_audit_opts o = { ctx->opt.level, ctx->opt.max_rir, SD_SESSION_CAP };
-	struct sd_chart c = { &ctx->profile, cmd_covars(ctx, 0), ctx->opt.level, NULL, NULL };
+	struct sd_chart c = { &ctx->profile, app_covars(ctx, 0), ctx->opt.level, NULL, NULL };
 	int rc, force = 0;
 
 	if (parse(argc, argv, &out, &program, &force, &cmd_chart, e))
@@ -72,7 +72,7 @@ static int exec_chart(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	}
 	if (program_load(program, &ctx->lib, &prog, e))
 		return -1;
-	c.cov = cmd_covars(ctx, prog.weeks);
+	c.cov = app_covars(ctx, prog.weeks);
 	rc = audit_run(&prog, &ctx->lib, &ctx->profile, &c.cov, &o, &au, e);
 	if (!rc) {
 		c.audit = &au;
@@ -114,12 +114,12 @@ static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 		const char *path = argv[optind + done];
 		if (program_load(path, &ctx->lib, &progs[done], e))
 			goto out;
-		struct sd_covars cov = cmd_covars(ctx, progs[done].weeks);
+		struct sd_covars cov = app_covars(ctx, progs[done].weeks);
 		if (audit_run(&progs[done], &ctx->lib, &ctx->profile, &cov, &o, &audits[done], e)) {
 			prog_free(&progs[done]);
 			goto out;
 		}
-		info[done] = (struct sd_audit_info){ path, &progs[done], &ctx->profile, &audits[done], NULL };
+		info[done] = (struct sd_audit_info){ path, &progs[done], &ctx->profile, &audits[done], NULL, 0 };
 	}
 	rc = draw_to(out, force, NULL, info, n, e);
 	if (!rc)

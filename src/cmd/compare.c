@@ -7,7 +7,7 @@
 #include "../core/compare.h"
 #include "../io/compare_out.h"
 #include "dbutil.h"
-#include "progarg.h"
+#include "../app/progarg.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_compare;
@@ -63,7 +63,7 @@ static int exec_compare(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 		if (c == 'a')
 			against_first = 1;
 		else if (c == 'c') {
-			if (dbu_num("--session-cap", optarg, 0.5, 100, &cap, e))
+			if (app_num("--session-cap", optarg, SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX, &cap, e))
 				return -1;
 		} else
 			return bad_option(argc, argv, e);
@@ -88,7 +88,7 @@ static int exec_compare(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 			goto done;
 
 	/* One athlete context for every program, so heterogeneity and moderators cancel. */
-	struct sd_covars cov = cmd_covars(ctx, prog[0].weeks);
+	struct sd_covars cov = app_covars(ctx, prog[0].weeks);
 	struct sd_audit_opts ao = { ctx->opt.level, ctx->opt.max_rir, cap };
 	for (; audited < n; audited++) {
 		if (audit_run(&prog[audited], &ctx->lib, &ctx->profile, &cov, &ao, &au[audited], e))

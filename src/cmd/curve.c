@@ -198,13 +198,13 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	}
 	if (optind < argc)
 		return sd_usage(e, "curve takes no arguments besides options, got '%s'", argv[optind]);
-	cov = cmd_covars(ctx, 0);
+	cov = app_covars(ctx, 0);
 	if (program) {
 		/* The program's own block length applies when --weeks is not given. */
 		struct sd_program prog;
 		if (program_load(program, &ctx->lib, &prog, e))
 			return -1;
-		cov = cmd_covars(ctx, prog.weeks);
+		cov = app_covars(ctx, prog.weeks);
 		prog_free(&prog);
 	}
 	if (print_table(ctx, step, &cov, e))

@@ -91,7 +91,7 @@ static int exec_db(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	struct sd_db *db = NULL;
 	int rc;
 
-	if (dbu_path(ctx, path, sizeof path, e))
+	if (app_db_path(ctx, path, sizeof path, e))
 		return -1;
 	/* 'path' does not open (nor create) the database. */
 	if (!strcmp(sub, "path")) {

@@ -24,7 +24,7 @@ static int parse_load(const char *s, double *load, const char **unit, struct sd_
 		return sd_usage(e, "bad load '%s'", s);
 	memcpy(num, s, n);
 	num[n] = '\0';
-	return dbu_num("LOAD", num, 1e-9, 1e6, load, e);
+	return app_num("LOAD", num, 1e-9, 1e6, load, e);
 }
 
 static int exec_e1rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
@@ -56,7 +56,7 @@ static int exec_e1rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e
 	if (argc - optind != 2)
 		return sd_usage(e, "usage: setdose %s", cmd_e1rm.usage);
 	if (parse_load(argv[optind], &load, &unit, e) ||
-	    dbu_int("REPS", argv[optind + 1], 1, E1RM_MAX_REPS, &reps, e))
+	    app_int("REPS", argv[optind + 1], 1, E1RM_MAX_REPS, &reps, e))
 		return -1;
 	if (!all && ctx->opt.format == SD_FMT_TABLE) {
 		if (e1rm_estimate(f, load, (int)reps, &est, &warn, e))

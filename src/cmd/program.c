@@ -60,7 +60,7 @@ static int add_one(struct sd_ctx *ctx, const char *path, const char *name_opt, c
 	if (program_parse(path, text, len, is_csv, &ctx->lib, &prog, e))
 		goto done;
 	pick_name(name_opt, &prog, path, name, sizeof name);
-	if (dbu_name("program", name, DB_PROGNAME_MAX, e))
+	if (app_name("program", name, DB_PROGNAME_MAX, e))
 		goto done;
 	if (db_program_add(ctx->db, name, text, len, is_csv, NULL, e))
 		goto done;
@@ -168,7 +168,7 @@ static int do_show(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 
 	if (argc != 2)
 		return usage(e);
-	if (db_program_get(ctx->db, argv[1], &p, e))
+	if (app_program_get(ctx->db, argv[1], &p, e))
 		return -1;
 	/* Byte for byte: no newline added, no re-encoding. */
 	if (p.len && fwrite(p.source, 1, p.len, ctx->out) != p.len) {
@@ -186,7 +186,7 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 
 	if (argc != 2)
 		return usage(e);
-	if (db_begin(ctx->db, e) || db_program_get(ctx->db, argv[1], &p, e))
+	if (db_begin(ctx->db, e) || app_program_get(ctx->db, argv[1], &p, e))
 		return -1;
 	rc = db_program_refs(ctx->db, p.id, &nb, e);
 	if (!rc && nb)

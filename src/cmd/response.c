@@ -13,7 +13,8 @@
 #include "../io/audit_out.h"
 #include "../io/jsonout.h"
 #include "../io/recout.h"
-#include "respdata.h"
+#include "../app/respdata.h"
+#include "dbutil.h"
 
 extern const struct sd_cmd cmd_response;
 
@@ -47,22 +48,22 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
 		switch (c) {
 		case 'b':
-			if (dbu_int("--block", optarg, 1, 0x7fffffffffffffffLL, &ra->block, e))
+			if (app_int("--block", optarg, 1, 0x7fffffffffffffffLL, &ra->block, e))
 				return -1;
 			break;
 		case 'p':
-			if (dbu_num("--prior-sd", optarg, 1e-4, 2, &ra->ro.prior_sd, e))
+			if (app_num("--prior-sd", optarg, 1e-4, 2, &ra->ro.prior_sd, e))
 				return -1;
 			break;
 		case 'P':
 			ra->ro.priors_only = 1;
 			break;
 		case 't':
-			if (dbu_num("--test-error", optarg, 0, 1, &ra->ro.test_sd, e))
+			if (app_num("--test-error", optarg, 0, 1, &ra->ro.test_sd, e))
 				return -1;
 			break;
 		case 'w':
-			if (dbu_int("--window", optarg, 0, 365, &v, e))
+			if (app_int("--window", optarg, 0, 365, &v, e))
 				return -1;
 			ra->window = (int)v;
 			break;
@@ -234,7 +235,7 @@ static int exec_response(struct sd_ctx *ctx, int argc, char **argv, struct sd_er
 		return -1;
 	if (respd_load(ctx, argv[optind], ra.block, ra.window, &ra.ro, &rs, e))
 		return -1;
-	lb = dbu_lb(ctx, &rs.athlete);
+	lb = app_lb(ctx, &rs.athlete);
 	if (!(r = rec_new(NCOLS, heads, ctx->opt.format))) {
 		sd_fail(e, "out of memory");
 		goto done;

@@ -60,7 +60,7 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 	double d[MAX_DOSES];
 	int n = 0, c;
 	const struct sd_profile *p = &ctx->profile;
-	struct sd_covars cov = cmd_covars(ctx, 0);
+	struct sd_covars cov = app_covars(ctx, 0);
 	double plateau = curve_plateau(p, &cov, 1.0);
 
 	optind = 0;

@@ -23,21 +23,18 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		{ "formula", required_argument, NULL, 'f' },
 		{ NULL, 0, NULL, 0 },
 	};
+	const char *date = NULL;
 	struct db_athlete a;
 	struct db_test t;
-	long long reps = 1;
-	int c, f = E1RM_DEFAULT, have_date = 0, warn, lb;
+	int c, f = E1RM_DEFAULT, warn = 0, field, lb;
 
-	memset(&t, 0, sizeof t);
 	if (dbu_no_negatives(argc, argv, e))
 		return -1;
 	optind = 0;
 	opterr = 0;
 	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
 		if (c == 'd') {
-			if (dbu_date("--date", optarg, t.date, e))
-				return -1;
-			have_date = 1;
+			date = optarg;
 		} else if (c == 'f') {
 			if ((f = e1rm_find(optarg)) < 0)
 				return sd_usage(e, "unknown formula '%s' (see 'setdose e1rm --formula all')",
@@ -48,29 +45,23 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	}
 	if (argc - optind < 3 || argc - optind > 4)
 		return usage(e);
-	if (argc - optind == 4 &&
-	    dbu_int("REPS", argv[optind + 3], 1, E1RM_MAX_REPS, &reps, e))
+	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[optind], &a, e))
 		return -1;
-	if (!have_date && dbu_today(t.date, e))
+	if (app_test_build(ctx, &a, argv[optind + 1], date, argv[optind + 2],
+			   argc - optind == 4 ? argv[optind + 3] : NULL, f, &t, &warn, &field, e)) {
+		/* A bad number typed on the command line is a usage error, as the other options. */
+		if (field == APP_T_REPS || field == APP_T_DATE)
+			e->code = SD_EXIT_USAGE;
 		return -1;
-	if (dbu_lift(&ctx->lib, argv[optind + 1], t.lift, sizeof t.lift, e))
+	}
+	if (app_test_add(ctx->db, &t, e) || db_commit(ctx->db, e))
 		return -1;
-	if (db_begin(ctx->db, e) || db_athlete_get(ctx->db, argv[optind], &a, e))
-		return -1;
-	lb = dbu_lb(ctx, &a);
-	if (units_parse_load(argv[optind + 2], lb, &t.load_kg, e) ||
-	    e1rm_estimate(f, t.load_kg, (int)reps, &t.e1rm_kg, &warn, e))
-		return -1;
-	t.athlete_id = a.id;
-	t.reps = (int)reps;
-	snprintf(t.formula, sizeof t.formula, "%s", reps == 1 ? "tested" : e1rm_name(f));
-	if (db_test_add(ctx->db, &t, &t.id, e) || db_commit(ctx->db, e))
-		return -1;
+	lb = app_lb(ctx, &a);
 	if (warn)
-		fprintf(stderr, "setdose: warning: %lld reps: 1RM estimates lose accuracy above %d reps "
-			"(Reynolds, Gordon & Robergs 2006)\n", reps, E1RM_WARN_REPS);
-	fprintf(ctx->out, "added test %lld: %s, %s %.1f %s x %lld on %s; 1RM %.1f %s (%s)\n", t.id,
-		a.name, t.lift, units_show(t.load_kg, lb), units_name(lb), reps, t.date,
+		fprintf(stderr, "setdose: warning: %d reps: 1RM estimates lose accuracy above %d reps "
+			"(Reynolds, Gordon & Robergs 2006)\n", t.reps, E1RM_WARN_REPS);
+	fprintf(ctx->out, "added test %lld: %s, %s %.1f %s x %d on %s; 1RM %.1f %s (%s)\n", t.id,
+		a.name, t.lift, units_show(t.load_kg, lb), units_name(lb), t.reps, t.date,
 		units_show(t.e1rm_kg, lb), units_name(lb), t.formula);
 	return 0;
 }
@@ -87,13 +78,13 @@ static int do_list(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 
 	if (argc < 2 || argc > 3)
 		return usage(e);
-	if (db_athlete_get(ctx->db, argv[1], &a, e))
+	if (app_athlete_get(ctx->db, argv[1], &a, e))
 		return -1;
-	if (argc == 3 && dbu_lift(&ctx->lib, argv[2], lift, sizeof lift, e))
+	if (argc == 3 && app_lift(&ctx->lib, argv[2], lift, sizeof lift, e))
 		return -1;
 	if (db_test_list(ctx->db, a.id, argc == 3 ? lift : NULL, &v, &n, e))
 		return -1;
-	lb = dbu_lb(ctx, &a);
+	lb = app_lb(ctx, &a);
 	if (!(r = rec_new(8, heads, ctx->opt.format))) {
 		sd_fail(e, "out of memory");
 		goto done;
@@ -144,7 +135,8 @@ const struct sd_cmd cmd_test = {
 		 "  REPS       reps to failure with LOAD (default 1: a tested 1RM); above 1 the 1RM\n"
 		 "             is estimated, with a warning above 10 reps; more than 20 is refused\n"
 		 "  --formula  1RM equation (default brzycki; see 'setdose e1rm --formula all')\n"
-		 "  --date     day of the test (default today)",
+		 "  --date     day of the test (default today; not after today)\n"
+		 "  The same test (athlete, lift, date, load, reps) is not recorded twice.",
 	.flags = CMD_DB | CMD_LIBRARY,
 	.exec = exec_test,
 };

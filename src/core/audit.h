@@ -6,7 +6,9 @@
 #include "curve.h"
 #include "volume.h"
 
-#define SD_SESSION_CAP 10.0   /* fractional sets per muscle per session; common practice, no source */
+#include "limits.h"
+
+#define SD_SESSION_CAP SD_SESSION_CAP_DEFAULT
 #define SD_MAX_WARN 64
 
 struct sd_audit_row {

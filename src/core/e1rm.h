@@ -9,6 +9,8 @@
 #ifndef SD_E1RM_H
 #define SD_E1RM_H
 
+#include "limits.h"
+
 #include "err.h"
 
 enum e1rm_formula {
@@ -18,9 +20,9 @@ enum e1rm_formula {
 
 #define E1RM_DEFAULT E1RM_BRZYCKI
 /* Above this the estimates lose accuracy (Reynolds, Gordon & Robergs 2006): warn. */
-#define E1RM_WARN_REPS 10
+#define E1RM_WARN_REPS SD_TEST_REPS_WARN
 /* Above this a rep set says more about endurance than strength: refuse. */
-#define E1RM_MAX_REPS 20
+#define E1RM_MAX_REPS SD_TEST_REPS_MAX
 
 /* Lowercase name ("brzycki", "oconner"). */
 const char *e1rm_name(int f);

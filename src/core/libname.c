@@ -7,6 +7,7 @@
  * and the program go through the same folding, so a rule need not be good English, only
  * consistent; lib_index refuses two exercises that fold to one name. */
 #include "library.h"
+#include "suggest.h"
 
 #include <stdlib.h>
 #include <string.h>
@@ -198,33 +199,6 @@ unsigned lib_hash(const char *key)
 	return h;
 }
 
-/* Levenshtein distance of two short strings (folded names fit SD_KEY_MAX). */
-static int edit_distance(const char *a, const char *b)
-{
-	int la = (int)strlen(a), lb = (int)strlen(b);
-	int row[SD_KEY_MAX + 1];
-
-	if (la > SD_KEY_MAX || lb > SD_KEY_MAX)
-		return la > lb ? la : lb;
-	for (int j = 0; j <= lb; j++)
-		row[j] = j;
-	for (int i = 1; i <= la; i++) {
-		int diag = row[0];
-		row[0] = i;
-		for (int j = 1; j <= lb; j++) {
-			int up = row[j];
-			int best = diag + (a[i - 1] != b[j - 1]);
-			if (up + 1 < best)
-				best = up + 1;
-			if (row[j - 1] + 1 < best)
-				best = row[j - 1] + 1;
-			row[j] = best;
-			diag = up;
-		}
-	}
-	return row[lb];
-}
-
 /* Words that say how, not what: a shared "dumbbell" is weaker evidence than a shared "row". */
 static int weight(const char *w)
 {
@@ -242,7 +216,7 @@ static int same_word(const char *a, const char *b)
 {
 	if (!strcmp(a, b))
 		return 1;
-	return strlen(a) >= 5 && strlen(b) >= 5 && edit_distance(a, b) <= 1;
+	return strlen(a) >= 5 && strlen(b) >= 5 && sd_edit_distance(a, b) <= 1;
 }
 
 /* Weighted count of the query's words found in a name. */
@@ -277,7 +251,7 @@ static void score(const char *name, const struct words *q, const char *qkey, str
 
 	split(name, &w);
 	join(&w, key, sizeof key);
-	int s = overlap(q, &w), d = edit_distance(qkey, key);
+	int s = overlap(q, &w), d = sd_edit_distance(qkey, key);
 	/* A name containing the whole query ("squat" in "box squat") is close in spelling too. */
 	if (strlen(qkey) >= 4 && strstr(key, qkey) && d > 2)
 		d = 2;

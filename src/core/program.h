@@ -17,7 +17,9 @@
 #define SD_MAX_RPE 10
 #define SD_MAX_SECONDS 3600    /* one timed set */
 #define SD_MAX_LOAD_PCT 150    /* percent of 1RM (supramaximal holds and partials) */
-#define SD_MAX_WEEKS 104
+#include "limits.h"
+
+#define SD_MAX_WEEKS SD_WEEKS_MAX
 #define SD_PROG_NAME_MAX 127   /* bytes of a program name (the store's limit too) */
 #define SD_DAY_NAME_MAX 63     /* bytes of a day name */
 

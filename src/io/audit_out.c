@@ -174,8 +174,8 @@ void aout_sum_head(const struct sd_sumout *o)
 {
 	if (o->csv) {
 		fprintf(o->f, "%sprogram,muscle,fractional,gain_pct,curve_low,curve_high,athlete_low,"
-			"athlete_high,plus1_pct,plus1_low,plus1_high,zone,beyond_evidence\n",
-			o->with_athlete ? "athlete," : "");
+			"athlete_high,plus1_pct,plus1_low,plus1_high,zone,beyond_evidence%s\n",
+			o->with_athlete ? "athlete," : "", o->with_athlete ? ",overdue_days" : "");
 		return;
 	}
 	if (o->with_athlete)
@@ -197,11 +197,14 @@ void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
 				fputc(',', o->f);
 			}
 			tbl_csv_field(o->f, in->label);
-			fprintf(o->f, ",%s,%.2f,%.3f,%.3f,%.3f,%.3f,%.3f,%.4f,%.4f,%.4f,%s,%s\n",
+			fprintf(o->f, ",%s,%.2f,%.3f,%.3f,%.3f,%.3f,%.3f,%.4f,%.4f,%.4f,%s,%s",
 				muscle_name(m), r->dose.fractional, pct(r->pt.y), pct(r->pt.ci_lo),
 				pct(r->pt.ci_hi), pct(r->pt.ath_lo), pct(r->pt.ath_hi), r->plus1.pct,
 				r->plus1.lo, r->plus1.hi, zone_name(r->zone),
 				curve_beyond_names(r->pt.beyond, beyond, sizeof beyond));
+			if (o->with_athlete)
+				fprintf(o->f, ",%d", in->overdue_days);
+			fputc('\n', o->f);
 			continue;
 		}
 		if (o->with_athlete)
@@ -249,8 +252,10 @@ int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
 
 	if (!o)
 		return -1;
-	if (in->athlete)
+	if (in->athlete) {
 		cJSON_AddStringToObject(o, "athlete", in->athlete);
+		cJSON_AddNumberToObject(o, "overdue_days", in->overdue_days);
+	}
 	cJSON_AddStringToObject(o, "program", in->prog->name);
 	cJSON_AddStringToObject(o, "source", in->label);
 	cJSON_AddNumberToObject(o, "days", in->prog->ndays);

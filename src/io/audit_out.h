@@ -15,6 +15,7 @@ struct sd_audit_info {
 	const struct sd_profile *prof;
 	const struct sd_audit *audit;
 	const char *athlete;        /* or NULL */
+	int overdue_days;           /* with athlete: days an open block ran past its planned end */
 };
 
 /* The full report of one audit as aligned text. */

@@ -12,9 +12,11 @@
 
 #include "../core/err.h"
 
-#define DB_NAME_MAX 64
-#define DB_PROGNAME_MAX 128
-#define DB_NOTES_MAX 1024
+#include "../core/limits.h"
+
+#define DB_NAME_MAX SD_NAME_MAX
+#define DB_PROGNAME_MAX SD_PROGNAME_MAX
+#define DB_NOTES_MAX SD_NOTES_MAX
 #define DB_DATE_LEN 11          /* "YYYY-MM-DD" and its NUL */
 #define DB_STAMP_LEN 20         /* "YYYY-MM-DD HH:MM:SS" and its NUL */
 #define DB_FORMULA_MAX 16

@@ -7,7 +7,7 @@
 
 #include <stddef.h>
 
-#include "../cmd/cmd.h"
+#include "../app/ctx.h"
 #include "../core/audit.h"
 #include "../store/db.h"
 #include "state.h"

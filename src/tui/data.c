@@ -4,13 +4,13 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "../cmd/respdata.h"
+#include "../app/respdata.h"
 #include "../io/program_io.h"
 #include "app.h"
 
 void tui_today(char *buf)
 {
-	if (dbu_today(buf, NULL))
+	if (app_today(buf, NULL))
 		snprintf(buf, DATE_LEN, "2000-01-01");
 }
 
@@ -314,7 +314,7 @@ int tui_subject_block(struct tui_app *a, struct tui_subject *s, const struct db_
 	/* The same context `block show` uses: the athlete's status and the block's length
 	 * (the actual one once ended). */
 	if (reset_context)
-		tui_context_reset(&a->st.context, copy.trained, dbu_block_weeks(&copy));
+		tui_context_reset(&a->st.context, copy.trained, app_block_weeks(&copy));
 	tui_subject_refresh(a, s);
 	return 0;
 }
@@ -330,7 +330,7 @@ int tui_subject_template(struct tui_app *a, struct tui_subject *s, long long pro
 	subject_parse(a, s);
 	if (reset_context) {
 		/* The same context `audit` uses for a program file. */
-		struct sd_covars c = cmd_covars(a->ctx, s->err[0] ? 0 : s->prog.weeks);
+		struct sd_covars c = app_covars(a->ctx, s->err[0] ? 0 : s->prog.weeks);
 		tui_context_reset(&a->st.context, c.trained >= 0.5, c.weeks);
 	}
 	tui_subject_refresh(a, s);

@@ -12,7 +12,8 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
-#include "../cmd/dbutil.h"
+#include "../app/parse.h"
+#include "../app/records.h"
 #include "../core/e1rm.h"
 #include "../core/units.h"
 #include "../io/program_io.h"
@@ -42,11 +43,12 @@ const struct tui_bind tui_confirm_keys[] = {
 
 static const char *const statuses[] = { "untrained", "trained" };
 static const char *const units[] = { "kg", "lb" };
+static const char *const overlap_choices[] = { "refuse", "allow" };
 static const char *formulas[E1RM_NFORMULAS];
 
 /* Field order of each form. */
 enum { FA_NAME, FA_STATUS, FA_UNITS, FA_NOTES };
-enum { FB_ATHLETE, FB_TEMPLATE, FB_START, FB_WEEKS };
+enum { FB_ATHLETE, FB_TEMPLATE, FB_START, FB_WEEKS, FB_OVERLAP };
 enum { FT_LIFT, FT_DATE, FT_LOAD, FT_REPS, FT_FORMULA };
 enum { FS_NAME };
 
@@ -85,6 +87,7 @@ void tui_form_open_block(struct tui_app *a, long long athlete_id)
 	tui_form_choice(f, "template", a->prog_names, a->nprogs, 0);
 	tui_form_text(f, "start date", today);
 	tui_form_text(f, "weeks", "");
+	tui_form_choice(f, "overlap", overlap_choices, 2, 0);
 	tui_overlay_open(&a->st, TUI_OV_FORM);
 }
 
@@ -92,7 +95,7 @@ void tui_form_open_test(struct tui_app *a)
 {
 	struct tui_form *f = &a->st.form;
 	char today[DB_DATE_LEN];
-	int lb = dbu_lb(a->ctx, &a->cur);
+	int lb = app_lb(a->ctx, &a->cur);
 
 	for (int i = 0; i < E1RM_NFORMULAS; i++)
 		formulas[i] = e1rm_name(i);
@@ -140,7 +143,7 @@ static int save_athlete(struct tui_app *a, struct sd_err *e)
 	long long id = form_athlete;
 
 	memset(&at, 0, sizeof at);
-	if (dbu_name("athlete", tui_form_value(f, FA_NAME), DB_NAME_MAX, e))
+	if (app_name("athlete", tui_form_value(f, FA_NAME), DB_NAME_MAX, e))
 		return FA_NAME;
 	if (strlen(tui_form_value(f, FA_NOTES)) >= DB_NOTES_MAX) {
 		sd_fail(e, "notes are too long");
@@ -172,83 +175,61 @@ static int save_block(struct tui_app *a, struct sd_err *e)
 {
 	const struct tui_form *f = &a->st.form;
 	const struct db_athlete *at;
-	const struct db_program *pr;
 	struct db_program p;
-	struct sd_program prog;
 	char start[DB_DATE_LEN];
 	long long weeks = 0, id;
-	int bad = -1;
+	int stored = 0, bad = -1;
 
 	if (!a->nathletes)
 		return sd_fail(e, "no athletes: add one on the roster first"), FB_ATHLETE;
 	at = &a->athletes[f->field[FB_ATHLETE].choice];
-	pr = &a->progs[f->field[FB_TEMPLATE].choice];
-	if (dbu_date("start date", tui_form_value(f, FB_START), start, e))
+	if (app_date("start date", tui_form_value(f, FB_START), start, e))
 		return FB_START;
 	if (tui_form_value(f, FB_WEEKS)[0] &&
-	    dbu_int("weeks", tui_form_value(f, FB_WEEKS), TUI_WEEKS_MIN, TUI_WEEKS_MAX, &weeks, e))
+	    app_int("weeks", tui_form_value(f, FB_WEEKS), SD_WEEKS_MIN, SD_WEEKS_MAX, &weeks, e))
 		return FB_WEEKS;
-	/* As `block add` does: the template must still read with today's library, and without
-	 * weeks given it must state its own length. */
-	if (db_program_get_id(a->ctx->db, pr->id, &p, e))
+	if (db_program_get_id(a->ctx->db, a->progs[f->field[FB_TEMPLATE].choice].id, &p, e))
 		return FB_TEMPLATE;
-	if (program_parse(p.name, p.source, p.len, p.is_csv, &a->ctx->lib, &prog, e)) {
-		db_program_free(&p);
-		return FB_TEMPLATE;
-	}
-	if (!weeks)
-		weeks = prog.weeks;
-	if (weeks < TUI_WEEKS_MIN || weeks > TUI_WEEKS_MAX) {
-		sd_fail(e, "template '%s' does not give its length: fill in weeks", p.name);
-		bad = FB_WEEKS;
-	} else if (WRITE(a, e, db_block_add(a->ctx->db, at->id, p.id, start, (int)weeks, &id, e))) {
-		bad = FB_START;
-	} else {
-		tui_say(a, 0, "added block %lld: '%s' follows '%s' from %s for %lld weeks", id, at->name,
-			p.name, start, weeks);
-	}
-	prog_free(&prog);
+	/* The rules of `block add` (app_block_add): the template reads, it states its length when
+	 * the weeks are left empty, and blocks of one athlete do not overlap unless meant to. */
+	if (WRITE(a, e, app_block_add(a->ctx, at, &p, start, (int)weeks,
+				      f->field[FB_OVERLAP].choice, &id, &stored, e)))
+		bad = strstr(e->msg, "overlaps") ? FB_OVERLAP : strstr(e->msg, "length") ? FB_WEEKS :
+		      strstr(e->msg, "template") || strstr(e->msg, "program") ? FB_TEMPLATE : FB_START;
+	else
+		tui_say(a, 0, "added block %lld: '%s' follows '%s' from %s for %d weeks", id, at->name,
+			p.name, start, stored);
 	db_program_free(&p);
 	if (bad < 0)
 		tui_reload(a);
 	return bad;
 }
 
-/* Reads the test form into t; returns -1 when it is complete and valid, else the field at
- * fault with e filled. */
+/* Reads the test form into t through app_test_build (the rules of `test add`); returns -1 when
+ * it is complete and valid, else the field at fault with e filled. */
 static int read_test(struct tui_app *a, struct db_test *t, int *warn, struct sd_err *e)
 {
+	static const int field_of[] = { [APP_T_LIFT] = FT_LIFT, [APP_T_DATE] = FT_DATE,
+					[APP_T_LOAD] = FT_LOAD, [APP_T_REPS] = FT_REPS };
 	const struct tui_form *f = &a->st.form;
-	int lb = dbu_lb(a->ctx, &a->cur), fm = f->field[FT_FORMULA].choice;
-	long long reps;
+	int field;
 
-	memset(t, 0, sizeof *t);
-	if (dbu_lift(&a->ctx->lib, tui_form_value(f, FT_LIFT), t->lift, sizeof t->lift, e))
-		return FT_LIFT;
-	if (dbu_date("date", tui_form_value(f, FT_DATE), t->date, e))
-		return FT_DATE;
-	if (units_parse_load(tui_form_value(f, FT_LOAD), lb, &t->load_kg, e))
-		return FT_LOAD;
-	if (dbu_int("reps", tui_form_value(f, FT_REPS), 1, E1RM_MAX_REPS, &reps, e))
-		return FT_REPS;
-	if (e1rm_estimate(fm, t->load_kg, (int)reps, &t->e1rm_kg, warn, e))
-		return FT_REPS;
-	t->athlete_id = form_athlete;
-	t->reps = (int)reps;
-	/* Stored as `test add` stores it: a single rep is a tested 1RM, not an estimate. */
-	snprintf(t->formula, sizeof t->formula, "%s", reps == 1 ? "tested" : e1rm_name(fm));
+	if (app_test_build(a->ctx, &a->cur, tui_form_value(f, FT_LIFT), tui_form_value(f, FT_DATE),
+			   tui_form_value(f, FT_LOAD), tui_form_value(f, FT_REPS),
+			   f->field[FT_FORMULA].choice, t, warn, &field, e))
+		return field_of[field];
 	return -1;
 }
 
 static int save_test(struct tui_app *a, struct sd_err *e)
 {
 	struct db_test t;
-	int warn = 0, bad = read_test(a, &t, &warn, e), lb = dbu_lb(a->ctx, &a->cur);
+	int warn = 0, bad = read_test(a, &t, &warn, e), lb = app_lb(a->ctx, &a->cur);
 
 	if (bad >= 0)
 		return bad;
-	if (WRITE(a, e, db_test_add(a->ctx->db, &t, &t.id, e)))
-		return FT_LIFT;
+	if (WRITE(a, e, app_test_add(a->ctx->db, &t, e)))
+		return FT_DATE;
 	tui_reload(a);
 	tui_say(a, 0, "logged test %lld: %s %.1f %s x %d on %s; 1RM %.1f %s (%s)%s", t.id, t.lift,
 		units_show(t.load_kg, lb), units_name(lb), t.reps, t.date, units_show(t.e1rm_kg, lb),
@@ -332,7 +313,7 @@ static void test_preview(struct tui_app *a, int y, int x, int w)
 {
 	struct db_test t;
 	struct sd_err e;
-	int warn = 0, lb = dbu_lb(a->ctx, &a->cur);
+	int warn = 0, lb = app_lb(a->ctx, &a->cur);
 
 	sd_err_clear(&e);
 	if (read_test(a, &t, &warn, &e) >= 0) {
@@ -438,7 +419,7 @@ void tui_confirm_key(struct tui_app *a, int ch)
 		break;
 	case TUI_ASK_END_BLOCK:
 		tui_today(today);
-		if (WRITE(a, &e, db_block_end(a->ctx->db, a->end_block, today, &e))) {
+		if (WRITE(a, &e, app_block_end(a->ctx->db, a->end_block, today, NULL, &e))) {
 			tui_say(a, 1, "%s; nothing changed", e.msg);
 			return;
 		}
@@ -623,7 +604,7 @@ static int save_template(struct tui_app *a, struct sd_err *e)
 	long long id;
 	int nb = 0;
 
-	if (dbu_name("template", name, DB_PROGNAME_MAX, e))
+	if (app_name("template", name, DB_PROGNAME_MAX, e))
 		return FS_NAME;
 	if (!a->edit_text)
 		return sd_fail(e, "the edited text is gone"), FS_NAME;

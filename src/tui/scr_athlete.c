@@ -4,7 +4,8 @@
 #include <stdio.h>
 #include <string.h>
 
-#include "../cmd/dbutil.h"
+#include "../app/blocks.h"
+#include "../app/parse.h"
 #include "../core/curve.h"
 #include "../core/units.h"
 #include "app.h"
@@ -43,8 +44,11 @@ static void draw_block(struct tui_app *a, int y, int i, int sel)
 	const struct db_block *b = &a->blocks[i];
 	enum tui_role role = sel ? TR_SEL : TR_PLAIN;
 	int cur = i == tui_current_block(a);
-	char when[48];
+	char when[48], today[DB_DATE_LEN];
+	int overdue;
 
+	tui_today(today);
+	overdue = app_block_overdue(b, today);
 	if (b->end[0])
 		snprintf(when, sizeof when, "%s to %s", b->start, b->end);
 	else
@@ -53,7 +57,11 @@ static void draw_block(struct tui_app *a, int y, int i, int sel)
 	tui_put(y, 10, 26, role, when);
 	tui_putf(y, 36, 6, role, "%3d wk", b->weeks);
 	tui_put(y, 43, COLS - 43 - 12, role, b->program);
-	if (cur)
+	/* An open block past its planned end is flagged before "current": it was likely never
+	 * ended (app_block_overdue). */
+	if (overdue)
+		tui_putf(y, COLS - 10, 9, sel ? TR_SEL : TR_WARN, "%dd over", overdue);
+	else if (cur)
 		tui_put(y, COLS - 10, 9, sel ? TR_SEL : TR_OK, "current");
 	else if (!b->end[0])
 		tui_put(y, COLS - 10, 9, sel ? TR_SEL : TR_DIM, "open");
@@ -63,7 +71,7 @@ static void draw_test(struct tui_app *a, int y, int i, int sel)
 {
 	const struct db_test *t = &a->tests[i];
 	enum tui_role role = sel ? TR_SEL : TR_PLAIN;
-	int lb = dbu_lb(a->ctx, &a->cur);
+	int lb = app_lb(a->ctx, &a->cur);
 	const char *u = units_name(lb);
 
 	tui_put(y, 3, 11, role, t->date);

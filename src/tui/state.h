@@ -7,6 +7,8 @@
 #ifndef SD_TUI_STATE_H
 #define SD_TUI_STATE_H
 
+#include "../core/limits.h"
+
 /* A selectable, scrollable list of n rows of which `rows` fit on screen. */
 struct tui_list {
 	int n;          /* rows in the list */
@@ -83,8 +85,8 @@ void tui_cursor_set(struct tui_cursor *c, double x);
 int tui_cursor_next(struct tui_cursor *c, const double *doses, int k);
 
 /* The athlete context the curve is drawn for: training status and block length. */
-#define TUI_WEEKS_MIN 1
-#define TUI_WEEKS_MAX 104
+#define TUI_WEEKS_MIN SD_WEEKS_MIN
+#define TUI_WEEKS_MAX SD_WEEKS_MAX
 struct tui_context {
 	int trained;    /* 0 untrained, 1 trained */
 	double weeks;   /* block length (an ended block's actual length may be fractional) */

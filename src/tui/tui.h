@@ -8,7 +8,7 @@
 #ifndef SD_TUI_H
 #define SD_TUI_H
 
-#include "../cmd/cmd.h"
+#include "../app/ctx.h"
 
 struct tui_app;
 

@@ -5,7 +5,7 @@
 #define SD_PROGARG_H
 
 #include "../core/program.h"
-#include "cmd.h"
+#include "ctx.h"
 
 struct progarg {
 	struct sd_db *db;          /* opened here when ctx->db was not; closed by progarg_close */

@@ -6,7 +6,7 @@
 
 #include "../io/program_io.h"
 #include "../store/db.h"
-#include "dbutil.h"
+#include "records.h"
 
 /* Something typed as a path (a folder part or a program file's extension) is never looked
  * up in the store, so a mistyped file name gets the file's own error. */
@@ -29,7 +29,7 @@ int progarg_load(struct sd_ctx *ctx, struct progarg *pa, const char *arg, struct
 	if (access(arg, F_OK) == 0 || looks_like_path(arg))
 		return program_load(arg, &ctx->lib, p, e);
 	if (!db) {
-		if (dbu_path(ctx, path, sizeof path, e))
+		if (app_db_path(ctx, path, sizeof path, e))
 			return -1;
 		if (access(path, F_OK) != 0)
 			return sd_fail(e, "cannot read program '%s': no such file, and no database "
@@ -38,7 +38,7 @@ int progarg_load(struct sd_ctx *ctx, struct progarg *pa, const char *arg, struct
 			return -1;
 		db = pa->db;
 	}
-	if (db_program_get(db, arg, &dp, e)) {
+	if (app_program_get(db, arg, &dp, e)) {
 		if (e && !strncmp(e->msg, "unknown program", 15))
 			sd_fail(e, "cannot read program '%s': no such file or stored template", arg);
 		return -1;

@@ -73,12 +73,12 @@ static int block_rows(struct sd_ctx *ctx, int window, const struct resp_opts *ro
 	struct db_program p = { 0 };
 	struct sd_program prog = { 0 };
 	struct sd_audit au = { 0 };
-	struct sd_covars cov = { dbu_block_weeks(b), b->trained };
+	struct sd_covars cov = { app_block_weeks(b), b->trained };
 	long s = day(b->start), f = day(b->end);
 	int rc = -1, before = rs->n;
 
 	if (db_program_get_id(ctx->db, b->program_id, &p, e) ||
-	    dbu_block_audit(ctx, b, &p, SD_SESSION_CAP, &prog, &au, e))
+	    app_block_audit(ctx, b, &p, SD_SESSION_CAP, &prog, &au, e))
 		goto done;
 	const struct db_test *t = rs->t;
 	int nt = rs->nt;
@@ -230,7 +230,7 @@ int respd_load(struct sd_ctx *ctx, const char *athlete, long long only_block, in
 	int rc = -1;
 
 	memset(d, 0, sizeof *d);
-	if (respd_check_opts(ro, e) || db_athlete_get(ctx->db, athlete, &d->athlete, e))
+	if (respd_check_opts(ro, e) || app_athlete_get(ctx->db, athlete, &d->athlete, e))
 		return -1;
 	if (athlete_rows(ctx, only_block, window, ro, d, e))
 		goto done;

@@ -11,7 +11,9 @@
 #define SD_RESPDATA_H
 
 #include "../core/response.h"
-#include "dbutil.h"
+#include "blocks.h"
+#include "parse.h"
+#include "records.h"
 
 #define RESPD_WINDOW_DAYS 14   /* "near" a block's start or end; common practice, no source */
 #define RESPD_PRIOR_PROFILE -1.0  /* prior_sd: the profile's between-athlete variance */
