@@ -9,6 +9,7 @@
 #include <string.h>
 #include <unistd.h>
 
+#include "app/parse.h"
 #include "cmd/cmd.h"
 #include "core/limits.h"
 #include "io/library_io.h"
@@ -19,33 +20,28 @@
 #define SD_VERSION "0.1.0"
 #endif
 
-struct gopt {
-	const char *name;
-	int takes_value;
-};
-
-static const struct gopt gopts[] = {
-	{ "db", 1 }, { "profile", 1 }, { "exercises", 1 }, { "format", 1 }, { "status", 1 },
-	{ "weeks", 1 }, { "level", 1 }, { "swc", 1 }, { "units", 1 }, { "max-rir", 1 },
-	{ "no-color", 0 }, { "version", 0 }, { "help", 0 }, { NULL, 0 },
+/* What the global options fill: the run's options, and the two that stop the run early. */
+struct gvals {
+	struct sd_opts o;
+	int version, help;
 };
 
 static int parse_number(const char *opt, const char *v, double lo, double hi, double *out,
 			struct sd_err *e)
 {
-	char *end;
-	errno = 0;
-	double x = strtod(v, &end);
-	if (end == v || *end || errno || !(x >= lo && x <= hi))
-		return sd_usage(e, "--%s wants a number from %g to %g, not '%s'", opt, lo, hi, v);
-	*out = x;
-	return 0;
+	char what[32];
+	snprintf(what, sizeof what, "--%s", opt);
+	return app_num(what, v, lo, hi, out, e);
 }
 
-static int apply(struct sd_opts *o, const char *name, const char *v, int *want_version,
-		 int *want_help, struct sd_err *e)
+/* Each global option by name (the table below), with its own checks. */
+static int gapply(void *dst, const struct sd_optdef *d, const char *v, struct sd_err *e)
 {
+	struct gvals *g = dst;
+	struct sd_opts *o = &g->o;
+	const char *name = d->name;
 	double x;
+
 	if (!strcmp(name, "db"))
 		o->db_path = v;
 	else if (!strcmp(name, "profile"))
@@ -91,46 +87,109 @@ static int apply(struct sd_opts *o, const char *name, const char *v, int *want_v
 	} else if (!strcmp(name, "no-color"))
 		o->color = 0;
 	else if (!strcmp(name, "version"))
-		*want_version = 1;
+		g->version = 1;
 	else if (!strcmp(name, "help"))
-		*want_help = 1;
+		g->help = 1;
+	return 0;
+}
+
+#define G(n, a, h) { n, OPT_CALL, 0, 0, 0, gapply, a, h }
+static const struct sd_optdef gdefs[] = {
+	G("db", "PATH", "database (default $XDG_DATA_HOME/setdose/setdose.db, or SETDOSE_DB)"),
+	G("profile", "PATH", "dose-response profile (default: bundled strength.ini)"),
+	G("exercises", "FILE", "one more exercise library file for this run"),
+	G("format", "FMT", "table, csv or json"),
+	G("status", "S", "trained or untrained (default untrained)"),
+	G("weeks", "N", "block length in weeks (default: the program's, else 10)"),
+	G("level", "L", "confidence level (default 0.95)"),
+	G("swc", "PCT", "smallest worthwhile change in percent (default: the profile's)"),
+	G("max-rir", "N", "sets with RIR above N are not hard sets (default 4)"),
+	G("units", "U", "load units, kg or lb"),
+	G("no-color", NULL, "no colour (NO_COLOR is honoured too)"),
+	G("version", NULL, "print the version and the database schema version"),
+	G("help", NULL, "this text; after a command, that command's help"),
+};
+#undef G
+
+/* The option table of the command, or of its subcommand named by the first argument; 1 when
+ * that subcommand exists. */
+static int cmd_table(const struct sd_cmd *cmd, const char *sub, const struct sd_optdef **defs,
+		     int *n, const char **label)
+{
+	*defs = cmd->opts;
+	*n = cmd->nopts;
+	*label = cmd->name;
+	for (const struct sd_sub *s = cmd->subs; s && s->name && sub; s++)
+		if (!strcmp(s->name, sub)) {
+			*defs = s->opts;
+			*n = s->nopts;
+			*label = s->label;
+			return 1;
+		}
 	return 0;
 }
 
 /* Takes the global options out of argv wherever they stand (before a "--"), so that both
- * `setdose --format json audit x.ini` and `setdose audit x.ini --format json` work. What is
- * left, in order, is the command and its own arguments. */
-static int extract_globals(int *argc, char **argv, struct sd_opts *o, int *want_version,
-			   int *want_help, struct sd_err *e)
+ * `setdose --format json audit x.ini` and `setdose audit x.ini --format json` work. Before the
+ * command name only global options may stand. After it, the command's own table (opt.h) says
+ * which words are its options and which of those take the next word as their value: such a
+ * value is never read as a global option, so `athlete add Ann --notes --no-color` stores the
+ * note "--no-color". What is left, in order, is the command and its own arguments. */
+static int extract_globals(int *argc, char **argv, struct gvals *g, struct sd_err *e)
 {
-	int out = 1, i;
+	const struct sd_optdef *cdefs = NULL;
+	const struct sd_cmd *cmd = NULL;
+	const char *label = "setdose";
+	int out = 1, i, ncdefs = 0, npos = 0;
+
 	for (i = 1; i < *argc; i++) {
-		char *a = argv[i];
-		const struct gopt *g = NULL;
-		const char *val = NULL;
+		const char *a = argv[i], *val = NULL;
+		int kg, kc = -1;
 		if (!strcmp(a, "--"))
 			break;
 		if (!strcmp(a, "-h"))
 			a = "--help";
-		if (!strncmp(a, "--", 2)) {
-			size_t len = strcspn(a + 2, "=");
-			for (const struct gopt *c = gopts; c->name; c++)
-				if (strlen(c->name) == len && !strncmp(a + 2, c->name, len))
-					g = c;
-			if (g && a[2 + len] == '=')
-				val = a + 3 + len;
-		}
-		if (!g) {
+		if (a[0] != '-' || !a[1]) {
+			/* The command name, then (for commands with subcommands) the subcommand's. */
+			if (npos == 0 && (cmd = cmd_find(a, NULL)))
+				cmd_table(cmd, NULL, &cdefs, &ncdefs, &label);
+			else if (npos == 1 && cmd && cmd->subs)
+				cmd_table(cmd, a, &cdefs, &ncdefs, &label);
+			npos++;
 			argv[out++] = argv[i];
 			continue;
 		}
-		if (g->takes_value && !val) {
+		if (cmd && (kc = opt_find(label, cdefs, ncdefs, a, &val, e)) == -2)
+			return -1;
+		kg = opt_find("setdose", gdefs, OPT_N(gdefs), a, &val, e);
+		if (kg == -2 && kc < 0)
+			return -1;
+		/* A name both tables know: the exact one wins; two prefixes are ambiguous. */
+		if (kc >= 0 && kg >= 0) {
+			size_t len = strcspn(a + 2, "=");
+			int cexact = strlen(cdefs[kc].name) == len, gexact = strlen(gdefs[kg].name) == len;
+			if (cexact == gexact)
+				return sd_usage(e, "option '%s' is ambiguous: --%s or --%s (see 'setdose help "
+						"%s')", a, cdefs[kc].name, gdefs[kg].name, label);
+			if (cexact)
+				kg = -1;
+		}
+		if (kg < 0) {
+			/* The command's own (it parses it), or unknown (it says so). */
+			argv[out++] = argv[i];
+			if (kc >= 0 && cdefs[kc].arg && !strchr(a, '=') && i + 1 < *argc)
+				argv[out++] = argv[++i];
+			continue;
+		}
+		if (gdefs[kg].arg && !val) {
 			if (i + 1 >= *argc)
-				return sd_usage(e, "option --%s needs a value", g->name);
+				return sd_usage(e, "option '--%s' needs a value (see 'setdose --help')",
+						gdefs[kg].name);
 			val = argv[++i];
-		} else if (!g->takes_value && val)
-			return sd_usage(e, "option --%s takes no value", g->name);
-		if (apply(o, g->name, val, want_version, want_help, e))
+		} else if (!gdefs[kg].arg && val)
+			return sd_usage(e, "option '--%s' takes no value (see 'setdose --help')",
+					gdefs[kg].name);
+		if (opt_apply("setdose", &gdefs[kg], g, val, e))
 			return -1;
 	}
 	for (; i < *argc; i++)
@@ -182,21 +241,32 @@ static void print_help(FILE *f)
 		"commands:\n");
 	for (int i = 0; sd_commands[i]; i++)
 		fprintf(f, "  %-10s %s\n", sd_commands[i]->name, sd_commands[i]->summary);
-	fprintf(f, "\nglobal options:\n"
-		"  --db PATH           database (default $XDG_DATA_HOME/setdose/setdose.db, or SETDOSE_DB)\n"
-		"  --profile PATH      dose-response profile (default: bundled strength.ini)\n"
-		"  --exercises FILE    one more exercise library file for this run\n"
-		"  --format FMT        table, csv or json\n"
-		"  --status S          trained or untrained (default untrained)\n"
-		"  --weeks N           block length in weeks (default: the program's, else 10)\n"
-		"  --level L           confidence level (default 0.95)\n"
-		"  --swc PCT           smallest worthwhile change in percent (default: the profile's)\n"
-		"  --max-rir N         sets with RIR above N are not hard sets (default 4)\n"
-		"  --units kg|lb       load units\n"
-		"  --no-color          no colour (NO_COLOR is honoured too)\n"
-		"  --version           print the version\n\n"
-		"'setdose help COMMAND' shows a command's options; 'man setdose' has everything.\n"
+	fprintf(f, "\nglobal options (anywhere on the line, before \"--\"):\n");
+	opt_help(f, gdefs, OPT_N(gdefs));
+	fprintf(f, "\n'setdose help COMMAND' shows a command's options; 'man setdose' has everything.\n"
 		"Population-average model: individual responses vary. Not medical advice.\n");
+}
+
+/* Every option of the command line is checked against the command's table before anything is
+ * loaded or opened, so a mistyped option changes nothing. A command without options gets its
+ * arguments with any option word refused here. */
+static int check_options(const struct sd_cmd *cmd, int *argc, char **argv, struct sd_err *e)
+{
+	const struct sd_optdef *defs;
+	const char *label;
+	char *copy[*argc + 1];
+	int n;
+
+	if (!cmd->opts && !cmd->subs) {
+		if ((n = opt_parse(cmd->name, NULL, 0, NULL, *argc - 1, argv + 1, e)) < 0)
+			return -1;
+		*argc = n + 1;
+		return 0;
+	}
+	if (!cmd_table(cmd, *argc > 2 ? argv[2] : NULL, &defs, &n, &label) && cmd->subs)
+		return 0;   /* no such subcommand: the command says so with its usage */
+	memcpy(copy, argv + (cmd->subs ? 2 : 1), sizeof *copy * (size_t)(*argc - (cmd->subs ? 2 : 1)));
+	return opt_parse(label, defs, n, NULL, *argc - (cmd->subs ? 2 : 1), copy, e) < 0 ? -1 : 0;
 }
 
 static int setup(struct sd_ctx *ctx, const struct sd_cmd *cmd, struct sd_err *e)
@@ -235,7 +305,8 @@ int main(int argc, char **argv)
 	struct sd_ctx ctx;
 	struct sd_err err;
 	const struct sd_cmd *cmd;
-	int want_version = 0, want_help = 0, rc = SD_EXIT_OK;
+	struct gvals g;
+	int rc = SD_EXIT_OK;
 	const char *nc = getenv("NO_COLOR");
 
 	/* LC_CTYPE is set only where non-ASCII text is measured or drawn (tbl_locale); numbers
@@ -248,14 +319,17 @@ int main(int argc, char **argv)
 	ctx.opt.color = isatty(STDOUT_FILENO) && !(nc && *nc);
 	find_datadir(ctx.datadir, sizeof ctx.datadir);
 
-	if (extract_globals(&argc, argv, &ctx.opt, &want_version, &want_help, &err))
+	memset(&g, 0, sizeof g);
+	g.o = ctx.opt;
+	if (extract_globals(&argc, argv, &g, &err))
 		goto fail;
-	if (want_version) {
+	ctx.opt = g.o;
+	if (g.version) {
 		printf("setdose %s (database schema %d)\n", SD_VERSION, db_schema_latest());
 		goto done;
 	}
 	if (argc < 2) {
-		if (!want_help && isatty(STDIN_FILENO) && isatty(STDOUT_FILENO) &&
+		if (!g.help && isatty(STDIN_FILENO) && isatty(STDOUT_FILENO) &&
 		    (cmd = cmd_find("browse", &err)) && !strcmp(cmd->name, "browse")) {
 			argv[1] = "browse";
 			argc = 2;
@@ -264,7 +338,7 @@ int main(int argc, char **argv)
 			goto done;
 		}
 	}
-	if (want_help) {
+	if (g.help) {
 		/* "setdose audit --help" is "setdose help audit". */
 		char *hargv[] = { "help", argv[1], NULL };
 		cmd = cmd_find("help", &err);
@@ -277,7 +351,7 @@ int main(int argc, char **argv)
 	cmd = cmd_find(argv[1], &err);
 	if (!cmd)
 		goto fail;
-	if (setup(&ctx, cmd, &err))
+	if (check_options(cmd, &argc, argv, &err) || setup(&ctx, cmd, &err))
 		goto fail;
 	if (cmd->exec(&ctx, argc - 1, argv + 1, &err))
 		goto fail;

@@ -2,7 +2,6 @@
  * a weekly set budget and the session rules, laid out over the sessions, optionally written as
  * a program file. Four steps: the problem (options, candidates, limits), the solve, the layout
  * (and its audit), the output. */
-#include <getopt.h>
 #include <math.h>
 #include <stdarg.h>
 #include <stddef.h>
@@ -110,8 +109,11 @@ static int parse_list(const char *opt, const char *arg, double hi, double *val, 
 
 /* ---- The options: one table, read by one loop ---------------------------------------- */
 
-static int opt_budget(struct allot_args *a, const char *arg, struct sd_err *e)
+static int opt_budget(void *dst, const struct sd_optdef *d, const char *arg, struct sd_err *e)
 {
+	struct allot_args *a = dst;
+
+	(void)d;
 	/* Zero and negative budgets get their own words: the commonest slip. */
 	char *end;
 	double x = strtod(arg, &end);
@@ -120,20 +122,29 @@ static int opt_budget(struct allot_args *a, const char *arg, struct sd_err *e)
 	return app_int("--budget", arg, 1, MAX_BUDGET, &a->budget, e);
 }
 
-static int opt_priority(struct allot_args *a, const char *arg, struct sd_err *e)
+static int opt_priority(void *dst, const struct sd_optdef *d, const char *arg, struct sd_err *e)
 {
+	struct allot_args *a = dst;
+
+	(void)d;
 	return parse_list("priority", arg, 1000, a->weight, a->wset, &a->others, &a->others_set, e);
 }
 
-static int opt_min(struct allot_args *a, const char *arg, struct sd_err *e)
+static int opt_min(void *dst, const struct sd_optdef *d, const char *arg, struct sd_err *e)
 {
+	struct allot_args *a = dst;
+
+	(void)d;
 	return parse_list("min", arg, 1000, a->min, a->minset, NULL, NULL, e);
 }
 
 /* "RIR N", "N RIR" or "RPE N" (RIR = 10 - RPE), whole numbers; the scale is always named,
  * since a bare number means RIR to some coaches and RPE to others. */
-static int opt_effort(struct allot_args *a, const char *arg, struct sd_err *e)
+static int opt_effort(void *dst, const struct sd_optdef *d, const char *arg, struct sd_err *e)
 {
+	struct allot_args *a = dst;
+
+	(void)d;
 	char w1[8] = "", w2[8] = "";
 	int n = -1, k = -1, rpe = -1;
 	if (sscanf(arg, " %7[A-Za-z] %d %n", w1, &n, &k) == 2 && k >= 0 && !arg[k])
@@ -148,74 +159,70 @@ static int opt_effort(struct allot_args *a, const char *arg, struct sd_err *e)
 	return 0;
 }
 
-enum opt_kind { OPT_INT, OPT_NUM, OPT_STR, OPT_FLAG, OPT_CALL };
-
-struct allot_opt {
-	const char *name;
-	enum opt_kind kind;
-	double lo, hi;                   /* OPT_INT, OPT_NUM */
-	size_t off;                      /* the field of struct allot_args it fills */
-	int (*call)(struct allot_args *a, const char *arg, struct sd_err *e);   /* OPT_CALL */
-};
-
 #define ARG(f) offsetof(struct allot_args, f)
-static const struct allot_opt opts[] = {
-	{ "budget", OPT_CALL, 0, 0, 0, opt_budget },
-	{ "sessions", OPT_INT, 1, MAX_SESSIONS, ARG(sessions), NULL },
-	{ "minutes-per-session", OPT_NUM, 1, 600, ARG(minutes), NULL },
-	{ "minutes-per-set", OPT_NUM, 0.25, 60, ARG(per_set), NULL },
-	{ "priority", OPT_CALL, 0, 0, 0, opt_priority },
-	{ "min", OPT_CALL, 0, 0, 0, opt_min },
-	{ "max-per-session", OPT_INT, 1, MAX_BUDGET, ARG(max_per_session), NULL },
-	{ "min-sets", OPT_INT, 1, 20, ARG(min_sets), NULL },
-	{ "max-sets", OPT_INT, 1, 20, ARG(max_sets), NULL },
-	{ "max-exercises", OPT_INT, 1, 30, ARG(max_exercises), NULL },
-	{ "fatigue-budget", OPT_NUM, 0.25, 5000, ARG(fatigue_budget), NULL },
-	{ "effort", OPT_CALL, 0, 0, 0, opt_effort },
-	{ "candidates", OPT_STR, 0, 0, ARG(candidates), NULL },
-	{ "from", OPT_STR, 0, 0, ARG(from), NULL },
-	{ "session-cap", OPT_NUM, SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX, ARG(cap), NULL },
-	{ "write", OPT_STR, 0, 0, ARG(write), NULL },
-	{ "force", OPT_FLAG, 0, 0, ARG(force), NULL },
-	{ "explain", OPT_FLAG, 0, 0, ARG(explain), NULL },
-	{ "node-limit", OPT_INT, 1, 100000000, ARG(node_limit), NULL },
-	{ "tolerance", OPT_NUM, 0, 1, ARG(tolerance), NULL },
-	{ "cold-start", OPT_FLAG, 0, 0, ARG(cold), NULL },
-	{ "no-floor", OPT_FLAG, 0, 0, ARG(no_floor), NULL },
+static const struct sd_optdef opts[] = {
+	{ "budget", OPT_CALL, 0, 0, 0, opt_budget, "SETS",
+	  "hard sets a week (or, without it, sessions x sets a session)" },
+	{ "sessions", OPT_INT, 1, MAX_SESSIONS, ARG(sessions), NULL, "N",
+	  "sessions a week (default: --from's days, else 3)" },
+	{ "minutes-per-session", OPT_NUM, 1, 600, ARG(minutes), NULL, "M",
+	  "with --minutes-per-set S: at most floor(M/S) sets a session; caps the budget" },
+	{ "minutes-per-set", OPT_NUM, 0.25, 60, ARG(per_set), NULL, "S", "see --minutes-per-session" },
+	{ "priority", OPT_CALL, 0, 0, 0, opt_priority, "LIST",
+	  "weights, e.g. quads=2,glutes=2,others=0.5. Default 1 for the\n"
+	  "targets (chest, lats, upper-back, front-, side- and rear-delts,\n"
+	  "biceps, triceps, quads, hamstrings, glutes, calves) and 0 for\n"
+	  "lower-back, forearms, abs and adductors (counted, not aimed\n"
+	  "at); a muscle the list does not name keeps its default" },
+	{ "min", OPT_CALL, 0, 0, 0, opt_min, "LIST",
+	  "fractional sets a week at least, e.g. calves=4. Without it\n"
+	  "each target is held at the profile's practical threshold\n"
+	  "(its plateau, 5 with the bundled profile) when a greedy\n"
+	  "cover shows the budget and rules allow it" },
+	{ "no-floor", OPT_FLAG, 0, 0, ARG(no_floor), NULL, NULL, "no such floors: the objective alone" },
+	{ "max-per-session", OPT_INT, 1, MAX_BUDGET, ARG(max_per_session), NULL, "SETS",
+	  "hard sets in one session at most" },
+	{ "min-sets", OPT_INT, 1, 20, ARG(min_sets), NULL, "N",
+	  "sets of a chosen exercise in a session at least (default 2;\n"
+	  "an exercise split over sessions has 2 in each at least)" },
+	{ "max-sets", OPT_INT, 1, 20, ARG(max_sets), NULL, "N", "... and at most (default 5)" },
+	{ "max-exercises", OPT_INT, 1, 30, ARG(max_exercises), NULL, "N",
+	  "exercises in one session at most (default 6)\n"
+	  "(these three defaults: common practice, no source)" },
+	{ "fatigue-budget", OPT_NUM, 0.25, 5000, ARG(fatigue_budget), NULL, "F",
+	  "weekly fatigue at most: the sum over sets of each exercise's\n"
+	  "cost per set (the library's 'fatigue': 1 a typical machine\n"
+	  "or isolation set, heavy squats and hinges 2-2.5); without it\n"
+	  "the plan shows its fatigue" },
+	{ "effort", OPT_CALL, 0, 0, 0, opt_effort, "'RIR N'",
+	  "the effort written on every set ('RPE N' too; default RIR 2,\n"
+	  "common practice, no source)" },
+	{ "candidates", OPT_STR, 0, 0, ARG(candidates), NULL, "LIST",
+	  "exercises to choose from, comma-separated (default: 25 common\n"
+	  "exercises covering every muscle); --exercises is the global\n"
+	  "library option, hence this name" },
+	{ "from", OPT_STR, 0, 0, ARG(from), NULL, "PROGRAM",
+	  "choose among the exercises of a program file or stored template" },
+	{ "session-cap", OPT_NUM, SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX, ARG(cap), NULL, "N",
+	  "at most N fractional sets per muscle in one session (default\n"
+	  "10; common practice, no source): sets are spread to respect it" },
+	{ "write", OPT_STR, 0, 0, ARG(write), NULL, "FILE",
+	  "write the laid-out plan as a program file ('audit FILE' reads\n"
+	  "it back to the same doses)" },
+	{ "force", OPT_FLAG, 0, 0, ARG(force), NULL, NULL, "with --write: replace an existing FILE" },
+	{ "tolerance", OPT_NUM, 0, 1, ARG(tolerance), NULL, "T",
+	  "prove the allotment within T of the best possible objective\n"
+	  "(default 0.001, about a thirtieth of the 3% SWC; 0: exact)" },
+	{ "node-limit", OPT_INT, 1, 100000000, ARG(node_limit), NULL, "N",
+	  "branch-and-bound nodes before stopping (default 20000)" },
+	{ "cold-start", OPT_FLAG, 0, 0, ARG(cold), NULL, NULL,
+	  "start every node's barrier afresh, as before the warm start\n"
+	  "(its multipliers still start at its parent's; slower, the same\n"
+	  "answer; to compare)" },
+	{ "explain", OPT_FLAG, 0, 0, ARG(explain), NULL, NULL,
+	  "print the objective, the defaults in use and the guarantee" },
 };
 #undef ARG
-#define NOPTS (int)(sizeof opts / sizeof opts[0])
-
-static int set_opt(const struct allot_opt *o, struct allot_args *a, const char *arg,
-		   struct sd_err *e)
-{
-	char what[40];
-	void *field = (char *)a + o->off;
-	snprintf(what, sizeof what, "--%s", o->name);
-	switch (o->kind) {
-	case OPT_INT:
-		return app_int(what, arg, (long long)o->lo, (long long)o->hi, field, e);
-	case OPT_NUM:
-		return app_num(what, arg, o->lo, o->hi, field, e);
-	case OPT_STR:
-		*(const char **)field = arg;
-		return 0;
-	case OPT_FLAG:
-		*(int *)field = 1;
-		return 0;
-	default:
-		return o->call(a, arg, e);
-	}
-}
-
-/* One line, without getopt's own message: the option as typed and where the usage is. */
-static int bad_option(int argc, char **argv, struct sd_err *e)
-{
-	const char *bad = optind > 0 && optind <= argc ? argv[optind - 1] : "?";
-	if (optopt && !strncmp(bad, "--", 2) && !strchr(bad, '='))
-		return sd_usage(e, "option '%s' needs a value (see 'setdose help allot')", bad);
-	return sd_usage(e, "unknown option '%s' (see 'setdose help allot')", bad);
-}
 
 static void defaults(struct allot_args *a)
 {
@@ -234,26 +241,12 @@ static void defaults(struct allot_args *a)
 static int parse_args(const struct sd_ctx *ctx, int argc, char **argv, struct allot_args *a,
 		      struct sd_err *e)
 {
-	struct option longopts[NOPTS + 1];
-	int c;
-
 	defaults(a);
-	for (int i = 0; i < NOPTS; i++)
-		longopts[i] = (struct option){ opts[i].name,
-					       opts[i].kind == OPT_FLAG ? no_argument : required_argument,
-					       NULL, i };
-	longopts[NOPTS] = (struct option){ NULL, 0, NULL, 0 };
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "+", longopts, NULL)) != -1) {
-		if (c < 0 || c >= NOPTS)
-			return bad_option(argc, argv, e);
-		if (set_opt(&opts[c], a, optarg, e))
-			return -1;
-	}
-	if (optind < argc)
+	if ((argc = opt_parse("allot", opts, OPT_N(opts), a, argc, argv, e)) < 0)
+		return -1;
+	if (argc > 1)
 		return sd_usage(e, "allot takes no arguments besides options, got '%s' (a program goes "
-				"after --from)", argv[optind]);
+				"after --from)", argv[1]);
 	if (a->candidates && a->from)
 		return sd_usage(e, "--candidates and --from both choose the exercises; give one");
 	if ((a->minutes > 0) != (a->per_set > 0))
@@ -695,47 +688,6 @@ const struct sd_cmd cmd_allot = {
 		 "      [--effort 'RIR N'] [--no-floor] [--candidates LIST | --from PROGRAM]\n"
 		 "      [--session-cap N] [--write FILE [--force]] [--tolerance T] [--node-limit N]\n"
 		 "      [--cold-start] [--explain]\n"
-		 "  --budget SETS          hard sets a week (or, without it, sessions x sets a session)\n"
-		 "  --sessions N           sessions a week (default: --from's days, else 3)\n"
-		 "  --minutes-per-session M, --minutes-per-set S\n"
-		 "                         at most floor(M/S) sets a session; caps the budget\n"
-		 "  --priority LIST        weights, e.g. quads=2,glutes=2,others=0.5. Default 1 for the\n"
-		 "                         targets (chest, lats, upper-back, front-, side- and rear-delts,\n"
-		 "                         biceps, triceps, quads, hamstrings, glutes, calves) and 0 for\n"
-		 "                         lower-back, forearms, abs and adductors (counted, not aimed\n"
-		 "                         at); a muscle the list does not name keeps its default\n"
-		 "  --min LIST             fractional sets a week at least, e.g. calves=4. Without it\n"
-		 "                         each target is held at the profile's practical threshold\n"
-		 "                         (its plateau, 5 with the bundled profile) when a greedy\n"
-		 "                         cover shows the budget and rules allow it\n"
-		 "  --no-floor             no such floors: the objective alone\n"
-		 "  --max-per-session SETS hard sets in one session at most\n"
-		 "  --min-sets N           sets of a chosen exercise in a session at least (default 2;\n"
-		 "                         an exercise split over sessions has 2 in each at least)\n"
-		 "  --max-sets N           ... and at most (default 5)\n"
-		 "  --max-exercises N      exercises in one session at most (default 6)\n"
-		 "                         (these three defaults: common practice, no source)\n"
-		 "  --fatigue-budget F     weekly fatigue at most: the sum over sets of each exercise's\n"
-		 "                         cost per set (the library's 'fatigue': 1 a typical machine\n"
-		 "                         or isolation set, heavy squats and hinges 2-2.5); without it\n"
-		 "                         the plan shows its fatigue\n"
-		 "  --effort 'RIR N'       the effort written on every set ('RPE N' too; default RIR 2,\n"
-		 "                         common practice, no source)\n"
-		 "  --candidates LIST      exercises to choose from, comma-separated (default: 25 common\n"
-		 "                         exercises covering every muscle); --exercises is the global\n"
-		 "                         library option, hence this name\n"
-		 "  --from PROGRAM         choose among the exercises of a program file or stored template\n"
-		 "  --session-cap N        at most N fractional sets per muscle in one session (default\n"
-		 "                         10; common practice, no source): sets are spread to respect it\n"
-		 "  --write FILE           write the laid-out plan as a program file ('audit FILE' reads\n"
-		 "                         it back to the same doses); --force replaces an existing file\n"
-		 "  --tolerance T          prove the allotment within T of the best possible objective\n"
-		 "                         (default 0.001, about a thirtieth of the 3% SWC; 0: exact)\n"
-		 "  --node-limit N         branch-and-bound nodes before stopping (default 20000)\n"
-		 "  --cold-start           start every node's barrier afresh, as before the warm start\n"
-		 "                         (its multipliers still start at its parent's; slower, the same\n"
-		 "                         answer; to compare)\n"
-		 "  --explain              print the objective, the defaults in use and the guarantee\n"
 		 "Objective: sum over muscles of priority x predicted gain (lnRR over no sets); no muscle\n"
 		 "past the profile's evidence range or above sessions x session cap.\n"
 		 "Guarantee: the weekly sets per exercise are optimal (within T) among all that meet the\n"
@@ -755,4 +707,6 @@ const struct sd_cmd cmd_allot = {
 		 "proved bound on the shortfall.",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_allot,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

@@ -1,5 +1,5 @@
 /* athlete: add, list, show, edit and remove the athletes kept in the database. */
-#include <getopt.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -15,30 +15,37 @@ static int usage(struct sd_err *e)
 	return sd_usage(e, "usage: setdose %s", cmd_athlete.usage);
 }
 
-/* Options of add and edit; --status and --units are global options (main.c). */
-static int parse_opts(int argc, char **argv, const char **notes, const char **rename, int edit,
-		      struct sd_err *e)
-{
-	static const struct option longopts[] = {
-		{ "notes", required_argument, NULL, 'n' },
-		{ "name", required_argument, NULL, 'r' },
-		{ NULL, 0, NULL, 0 },
-	};
-	int c;
+/* Options of add, edit and rm; --status and --units are global options (main.c). */
+struct athlete_opts {
+	const char *notes, *rename;
+	int yes, cascade;
+};
 
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		if (c == 'n')
-			*notes = optarg;
-		else if (c == 'r' && edit)
-			*rename = optarg;
-		else
-			return dbu_badopt(&cmd_athlete, argc, argv, e);
-	}
-	if (optind != argc - 1)
+#define AO(f) offsetof(struct athlete_opts, f)
+static const struct sd_optdef add_opts[] = {
+	{ "notes", OPT_STR, 0, 0, AO(notes), NULL, "TEXT", "free text about the athlete" },
+};
+static const struct sd_optdef edit_opts[] = {
+	{ "name", OPT_STR, 0, 0, AO(rename), NULL, "NEW", "rename the athlete" },
+	{ "notes", OPT_STR, 0, 0, AO(notes), NULL, "TEXT", "replace the notes" },
+};
+static const struct sd_optdef rm_opts[] = {
+	{ "yes", OPT_FLAG, 0, 0, AO(yes), NULL, NULL, "do not ask before removing" },
+	{ "cascade", OPT_FLAG, 0, 0, AO(cascade), NULL, NULL,
+	  "also remove the athlete's blocks and tests (else rm refuses)" },
+};
+#undef AO
+
+/* Reads a subcommand's options; exactly one NAME must remain, as argv[1]. */
+static int parse_opts(const char *label, const struct sd_optdef *defs, int n, int argc,
+		      char **argv, struct athlete_opts *o, struct sd_err *e)
+{
+	memset(o, 0, sizeof *o);
+	if ((argc = opt_parse(label, defs, n, o, argc, argv, e)) < 0)
+		return -1;
+	if (argc != 2)
 		return usage(e);
-	if (*notes && strlen(*notes) >= DB_NOTES_MAX)
+	if (o->notes && strlen(o->notes) >= DB_NOTES_MAX)
 		return sd_usage(e, "notes are too long (at most %d bytes)", DB_NOTES_MAX - 1);
 	return 0;
 }
@@ -46,15 +53,15 @@ static int parse_opts(int argc, char **argv, const char **notes, const char **re
 static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	struct db_athlete a;
-	const char *notes = NULL, *rename = NULL;
+	struct athlete_opts o;
 
-	if (parse_opts(argc, argv, &notes, &rename, 0, e))
+	if (parse_opts("athlete add", add_opts, OPT_N(add_opts), argc, argv, &o, e))
 		return -1;
-	if (app_name("athlete", argv[optind], DB_NAME_MAX, e))
+	if (app_name("athlete", argv[1], DB_NAME_MAX, e))
 		return -1;
 	memset(&a, 0, sizeof a);
-	snprintf(a.name, sizeof a.name, "%s", argv[optind]);
-	snprintf(a.notes, sizeof a.notes, "%s", notes ? notes : "");
+	snprintf(a.name, sizeof a.name, "%s", argv[1]);
+	snprintf(a.notes, sizeof a.notes, "%s", o.notes ? o.notes : "");
 	a.trained = ctx->opt.status_set && ctx->opt.trained >= 0.5;
 	a.units_lb = ctx->opt.units_lb;
 	if (db_begin(ctx->db, e) || db_athlete_add(ctx->db, &a, &a.id, e) ||
@@ -68,13 +75,16 @@ static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 static int do_edit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	struct db_athlete a;
-	const char *notes = NULL, *rename = NULL;
+	struct athlete_opts o;
+	const char *notes, *rename;
 
-	if (parse_opts(argc, argv, &notes, &rename, 1, e))
+	if (parse_opts("athlete edit", edit_opts, OPT_N(edit_opts), argc, argv, &o, e))
 		return -1;
+	notes = o.notes;
+	rename = o.rename;
 	if (rename && app_name("athlete", rename, DB_NAME_MAX, e))
 		return -1;
-	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[optind], &a, e))
+	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[1], &a, e))
 		return -1;
 	if (rename)
 		snprintf(a.name, sizeof a.name, "%s", rename);
@@ -199,27 +209,15 @@ static int do_show(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 
 static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "yes", no_argument, NULL, 'y' },
-		{ "cascade", no_argument, NULL, 'c' },
-		{ NULL, 0, NULL, 0 },
-	};
+	struct athlete_opts o;
 	struct db_athlete a;
-	int c, yes = 0, cascade = 0, nb, nt;
+	int yes, cascade, nb, nt;
 
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "y", longopts, NULL)) != -1) {
-		if (c == 'y')
-			yes = 1;
-		else if (c == 'c')
-			cascade = 1;
-		else
-			return dbu_badopt(&cmd_athlete, argc, argv, e);
-	}
-	if (optind != argc - 1)
-		return usage(e);
-	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[optind], &a, e) ||
+	if (parse_opts("athlete rm", rm_opts, OPT_N(rm_opts), argc, argv, &o, e))
+		return -1;
+	yes = o.yes;
+	cascade = o.cascade;
+	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[1], &a, e) ||
 	    db_athlete_refs(ctx->db, a.id, &nb, &nt, e))
 		return -1;
 	if ((nb || nt) && !cascade)
@@ -244,18 +242,18 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	return 0;
 }
 
-static const struct dbu_sub subs[] = {
-	{ "add", do_add },
-	{ "list", do_list },
-	{ "show", do_show },
-	{ "edit", do_edit },
-	{ "rm", do_rm },
-	{ NULL, NULL },
+static const struct sd_sub subs[] = {
+	{ "add", "athlete add", do_add, add_opts, OPT_N(add_opts) },
+	{ "list", "athlete list", do_list, NULL, 0 },
+	{ "show", "athlete show", do_show, NULL, 0 },
+	{ "edit", "athlete edit", do_edit, edit_opts, OPT_N(edit_opts) },
+	{ "rm", "athlete rm", do_rm, rm_opts, OPT_N(rm_opts) },
+	{ NULL, NULL, NULL, NULL, 0 },
 };
 
 static int exec_athlete(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	return dbu_subcommand(ctx, subs, &cmd_athlete, argc, argv, e);
+	return dbu_subcommand(ctx, &cmd_athlete, argc, argv, e);
 }
 
 const struct sd_cmd cmd_athlete = {
@@ -266,10 +264,9 @@ const struct sd_cmd cmd_athlete = {
 		 "       setdose athlete show NAME\n"
 		 "       setdose athlete edit NAME [--name NEW] [--status S] [--units U] [--notes TEXT]\n"
 		 "       setdose athlete rm NAME [--yes] [--cascade]\n"
-		 "  --status     training status, used for the curve (default untrained)\n"
-		 "  --units      kg or lb: how this athlete's loads are entered and shown (default kg)\n"
-		 "  --cascade    also remove the athlete's blocks and tests (else rm refuses)\n"
-		 "  --yes        do not ask before removing",
+		 "  --status and --units are global options: the training status used for the curve\n"
+		 "  (default untrained); kg or lb, how this athlete's loads are entered and shown",
 	.flags = CMD_DB,
 	.exec = exec_athlete,
+	.subs = subs,
 };

@@ -1,5 +1,5 @@
 /* audit: weekly fractional sets per muscle of one or more program files, on the curve. */
-#include <getopt.h>
+#include <stddef.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -13,8 +13,20 @@
 extern const struct sd_cmd cmd_audit;
 
 struct audit_args {
-	int summary;
+	int summary, all;
 	double cap;
+};
+
+static const struct sd_optdef opts[] = {
+	{ "summary", OPT_FLAG, 0, 0, offsetof(struct audit_args, summary), NULL, NULL,
+	  "one line per program and muscle instead of one report each" },
+	{ "all", OPT_FLAG, 0, 0, offsetof(struct audit_args, all), NULL, NULL,
+	  "every open block in the database, one line per athlete and muscle\n"
+	  "(the athlete's status, the block's planned weeks)" },
+	{ "session-cap", OPT_NUM, SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX,
+	  offsetof(struct audit_args, cap), NULL, "N",
+	  "warn when a muscle gets more than N fractional sets in one session\n"
+	  "(default 10; common practice, no source)" },
 };
 
 static int one(struct sd_ctx *ctx, const struct audit_args *a, const char *path,
@@ -54,44 +66,22 @@ out:
 
 static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "summary", no_argument, NULL, 's' },
-		{ "all", no_argument, NULL, 'a' },
-		{ "session-cap", required_argument, NULL, 'c' },
-		{ NULL, 0, NULL, 0 },
-	};
-	struct audit_args a = { 0, SD_SESSION_CAP };
+	struct audit_args a = { 0, 0, SD_SESSION_CAP };
 	struct sd_table *csv = NULL;
 	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7 };
-	int c, rc = 0, all = 0;
-	char *end;
+	int rc = 0, all, firstarg = 1;   /* the programs: argv[1..] once the options are read */
 
-	optind = 0;
-	while ((c = getopt_long(argc, argv, "+s", longopts, NULL)) != -1) {
-		switch (c) {
-		case 's':
-			a.summary = 1;
-			break;
-		case 'a':
-			all = 1;
-			break;
-		case 'c':
-			a.cap = strtod(optarg, &end);
-			if (end == optarg || *end || !(a.cap >= SD_SESSION_CAP_MIN && a.cap <= SD_SESSION_CAP_MAX))
-				return sd_usage(e, "--session-cap wants a number from %g to %g, not '%s'", SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX, optarg);
-			break;
-		default:
-			return sd_usage(e, "usage: setdose %s", cmd_audit.usage);
-		}
-	}
-	if (all && optind < argc)
+	if ((argc = opt_parse("audit", opts, OPT_N(opts), &a, argc, argv, e)) < 0)
+		return -1;
+	all = a.all;
+	if (all && firstarg < argc)
 		return sd_usage(e, "audit --all takes no PROGRAM files (it audits the open blocks)");
 	if (all)
 		return cmd_audit_all(ctx, a.cap, e);
-	if (optind >= argc)
+	if (firstarg >= argc)
 		return sd_usage(e, "audit needs at least one PROGRAM file (usage: setdose %s)",
 				cmd_audit.usage);
-	for (int i = optind; i < argc; i++) {
+	for (int i = firstarg; i < argc; i++) {
 		int w = (int)strlen(argv[i]);
 		if (w > so.wp)
 			so.wp = w;
@@ -102,8 +92,8 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		aout_sum_head(&so);
 	else if (ctx->opt.format == SD_FMT_CSV && !(csv = aout_muscle_table(1)))
 		return sd_fail(e, "out of memory");
-	for (int i = optind; i < argc && !rc; i++)
-		rc = one(ctx, &a, argv[i], csv, &so, i == optind, e);
+	for (int i = firstarg; i < argc && !rc; i++)
+		rc = one(ctx, &a, argv[i], csv, &so, i == firstarg, e);
 	if (!rc) {
 		if (ctx->opt.format == SD_FMT_JSON)
 			aout_json_end(ctx->out);
@@ -121,12 +111,9 @@ const struct sd_cmd cmd_audit = {
 	.summary = "weekly fractional sets per muscle of programs, placed on the curve",
 	.usage = "audit [--summary] [--session-cap SETS] PROGRAM...\n"
 		 "       setdose audit --all [--session-cap SETS]\n"
-		 "  PROGRAM         an INI or CSV program file (see 'man setdose', PROGRAM FILES)\n"
-		 "  --summary       one line per program and muscle instead of one report each\n"
-		 "  --all           every open block in the database, one line per athlete and\n"
-		 "                  muscle (the athlete's status, the block's planned weeks)\n"
-		 "  --session-cap N warn when a muscle gets more than N fractional sets in one\n"
-		 "                  session (default 10; common practice, no source)",
+		 "  PROGRAM         an INI or CSV program file (see 'man setdose', PROGRAM FILES)",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_audit,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

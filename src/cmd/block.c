@@ -1,5 +1,5 @@
 /* block: training blocks, one athlete following one stored template from a start date. */
-#include <getopt.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -18,60 +18,49 @@ static int usage(struct sd_err *e)
 
 static int block_id(const char *s, long long *id, struct sd_err *e)
 {
-	return app_int("block ID", s, 1, 0x7fffffffffffffffLL, id, e);
+	return app_int("block ID", s, 1, SD_ID_MAX, id, e);
 }
 
-/* Options of add and end: --start / --date, and add's --overlap. (--weeks is a global
- * option.) */
-static int date_opt(int argc, char **argv, const char *name, char *buf, int *given, int *overlap,
-		    struct sd_err *e)
-{
-	const struct option longopts[] = {
-		{ name, required_argument, NULL, 'd' },
-		{ overlap ? "overlap" : name, no_argument, NULL, 'o' },
-		{ NULL, 0, NULL, 0 },
-	};
-	char what[32];
-	int c;
+/* Options of add and end. (--weeks is a global option.) */
+struct block_opts {
+	const char *date;   /* --start or --date */
+	int overlap;
+};
 
-	*given = 0;
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		if (c == 'o' && overlap) {
-			*overlap = 1;
-			continue;
-		}
-		if (c != 'd')
-			return dbu_badopt(&cmd_block, argc, argv, e);
-		snprintf(what, sizeof what, "--%s", name);
-		if (app_date(what, optarg, buf, e))
-			return -1;
-		*given = 1;
-	}
-	return 0;
-}
+static const struct sd_optdef add_opts[] = {
+	{ "start", OPT_STR, 0, 0, offsetof(struct block_opts, date), NULL, "DATE",
+	  "first day of the block (YYYY-MM-DD)" },
+	{ "overlap", OPT_FLAG, 0, 0, offsetof(struct block_opts, overlap), NULL, NULL,
+	  "add it although another block of the athlete runs in those weeks" },
+};
+static const struct sd_optdef end_opts[] = {
+	{ "date", OPT_STR, 0, 0, offsetof(struct block_opts, date), NULL, "DATE",
+	  "the last day (default today; not after today)" },
+};
 
 static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	char start[DATE_LEN];
+	struct block_opts o = { NULL, 0 };
 	struct db_athlete a;
 	struct db_program p;
 	long long id;
-	int given, overlap = 0, weeks = 0, rc = -1;
+	int weeks = 0, rc = -1;
 
-	if (date_opt(argc, argv, "start", start, &given, &overlap, e))
+	if ((argc = opt_parse("block add", add_opts, OPT_N(add_opts), &o, argc, argv, e)) < 0)
 		return -1;
-	if (optind != argc - 2)
+	if (argc != 3)
 		return usage(e);
-	if (!given)
+	if (!o.date)
 		return sd_usage(e, "block add needs --start DATE (YYYY-MM-DD)");
+	if (app_date("--start", o.date, start, e))
+		return -1;
 	if (ctx->opt.weeks_set && ctx->opt.weeks != (int)ctx->opt.weeks)
 		return sd_usage(e, "--weeks wants a whole number of weeks for a block");
-	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[optind], &a, e) ||
-	    app_program_get(ctx->db, argv[optind + 1], &p, e))
+	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[1], &a, e) ||
+	    app_program_get(ctx->db, argv[2], &p, e))
 		return -1;
-	if (!app_block_add(ctx, &a, &p, start, ctx->opt.weeks_set ? (int)ctx->opt.weeks : 0, overlap,
+	if (!app_block_add(ctx, &a, &p, start, ctx->opt.weeks_set ? (int)ctx->opt.weeks : 0, o.overlap,
 			   &id, &weeks, e) && !db_commit(ctx->db, e)) {
 		fprintf(ctx->out, "added block %lld: '%s' follows '%s' from %s for %d weeks\n", id,
 			a.name, p.name, start, weeks);
@@ -184,33 +173,35 @@ out:
 static int do_end(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	char end[DATE_LEN];
+	struct block_opts o = { NULL, 0 };
 	long long id;
-	int given;
 
-	if (date_opt(argc, argv, "date", end, &given, NULL, e))
+	if ((argc = opt_parse("block end", end_opts, OPT_N(end_opts), &o, argc, argv, e)) < 0)
 		return -1;
-	if (optind != argc - 1)
+	if (argc != 2)
 		return usage(e);
-	if (block_id(argv[optind], &id, e))
+	if (block_id(argv[1], &id, e))
 		return -1;
-	if (db_begin(ctx->db, e) || app_block_end(ctx->db, id, given ? end : NULL, end, e) ||
+	if (o.date && app_date("--date", o.date, end, e))
+		return -1;
+	if (db_begin(ctx->db, e) || app_block_end(ctx->db, id, o.date ? end : NULL, end, e) ||
 	    db_commit(ctx->db, e))
 		return -1;
 	fprintf(ctx->out, "ended block %lld on %s\n", id, end);
 	return 0;
 }
 
-static const struct dbu_sub subs[] = {
-	{ "add", do_add },
-	{ "list", do_list },
-	{ "show", do_show },
-	{ "end", do_end },
-	{ NULL, NULL },
+static const struct sd_sub subs[] = {
+	{ "add", "block add", do_add, add_opts, OPT_N(add_opts) },
+	{ "list", "block list", do_list, NULL, 0 },
+	{ "show", "block show", do_show, NULL, 0 },
+	{ "end", "block end", do_end, end_opts, OPT_N(end_opts) },
+	{ NULL, NULL, NULL, NULL, 0 },
 };
 
 static int exec_block(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	return dbu_subcommand(ctx, subs, &cmd_block, argc, argv, e);
+	return dbu_subcommand(ctx, &cmd_block, argc, argv, e);
 }
 
 const struct sd_cmd cmd_block = {
@@ -220,12 +211,11 @@ const struct sd_cmd cmd_block = {
 		 "       setdose block list [ATHLETE]\n"
 		 "       setdose block show ID\n"
 		 "       setdose block end ID [--date DATE]\n"
-		 "  --start    first day of the block (YYYY-MM-DD)\n"
-		 "  --weeks    planned length (default: the template's weeks)\n"
-		 "  --overlap  add it although another block of the athlete runs in those weeks\n"
+		 "  --weeks    (global) planned length (default: the template's weeks)\n"
 		 "  show       the block's audit for the athlete's status and the block's length\n"
 		 "             (planned weeks while open, start to end once ended)\n"
 		 "  end        closes the block (default date: today; not after today)",
 	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,
 	.exec = exec_block,
+	.subs = subs,
 };

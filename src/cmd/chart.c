@@ -1,5 +1,5 @@
 /* chart and report: the curve as a picture, and a printable per-program report (cairo). */
-#include <getopt.h>
+#include <stddef.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -11,28 +11,33 @@
 
 extern const struct sd_cmd cmd_chart, cmd_report;
 
-static int parse(int argc, char **argv, const char **out, const char **program, int *force,
-		 const struct sd_cmd *self, struct sd_err *e)
+struct chart_opts {
+	const char *out, *program;
+	int force;
+};
+
+#define CO(f) offsetof(struct chart_opts, f)
+static const struct sd_optdef chart_opts[] = {
+	{ "out", OPT_STR, 0, 0, CO(out), NULL, "FILE",
+	  "the picture; its extension (.png, .svg, .pdf) picks the format" },
+	{ "program", OPT_STR, 0, 0, CO(program), NULL, "FILE",
+	  "mark the program's muscles at their weekly doses" },
+	{ "force", OPT_FLAG, 0, 0, CO(force), NULL, NULL, "replace an existing FILE" },
+};
+static const struct sd_optdef report_opts[] = {
+	{ "out", OPT_STR, 0, 0, CO(out), NULL, "FILE.pdf", "the report; one A4 page per program" },
+	{ "force", OPT_FLAG, 0, 0, CO(force), NULL, NULL, "replace an existing FILE.pdf" },
+};
+#undef CO
+
+/* The options of chart or report; the arguments are left in argv[1..], *argc their count + 1. */
+static int parse(int *argc, char **argv, struct chart_opts *o, const struct sd_cmd *self,
+		 struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "out", required_argument, NULL, 'o' },
-		{ "program", required_argument, NULL, 'p' },
-		{ "force", no_argument, NULL, 'f' },
-		{ NULL, 0, NULL, 0 },
-	};
-	int c;
-	optind = 0;
-	while ((c = getopt_long(argc, argv, "+o:", longopts, NULL)) != -1) {
-		if (c == 'o')
-			*out = optarg;
-		else if (c == 'f')
-			*force = 1;
-		else if (c == 'p' && program)
-			*program = optarg;
-		else
-			return sd_usage(e, "usage: setdose %s", self->usage);
-	}
-	if (!*out)
+	memset(o, 0, sizeof *o);
+	if ((*argc = opt_parse(self->name, self->opts, self->nopts, o, *argc, argv, e)) < 0)
+		return -1;
+	if (!o->out)
 		return sd_usage(e, "%s needs --out FILE (usage: setdose %s)", self->name, self->usage);
 	return 0;
 }
@@ -56,12 +61,16 @@ static int exec_chart(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	struct sd_audit au;
 	struct sd_audit_opts o = { ctx->opt.level, ctx->opt.max_rir, SD_SESSION_CAP };
 	struct sd_chart c = { &ctx->profile, app_covars(ctx, 0), ctx->opt.level, NULL, NULL };
-	int rc, force = 0;
+	struct chart_opts co;
+	int rc, force;
 
-	if (parse(argc, argv, &out, &program, &force, &cmd_chart, e))
+	if (parse(&argc, argv, &co, &cmd_chart, e))
 		return -1;
-	if (optind < argc)
-		return sd_usage(e, "chart takes no arguments besides options, got '%s'", argv[optind]);
+	if (argc > 1)
+		return sd_usage(e, "chart takes no arguments besides options, got '%s'", argv[1]);
+	out = co.out;
+	program = co.program;
+	force = co.force;
 	if (!chart_format_ok(out))
 		return sd_usage(e, "cannot tell the chart format of '%s': name it .png, .svg or .pdf", out);
 	if (!program) {
@@ -93,11 +102,14 @@ static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 	struct sd_program *progs;
 	struct sd_audit *audits;
 	struct sd_audit_info *info;
-	int n, done = 0, rc = -1, force = 0;
+	struct chart_opts co;
+	int n, done = 0, rc = -1, force;
 
-	if (parse(argc, argv, &out, NULL, &force, &cmd_report, e))
+	if (parse(&argc, argv, &co, &cmd_report, e))
 		return -1;
-	n = argc - optind;
+	out = co.out;
+	force = co.force;
+	n = argc - 1;
 	if (n < 1)
 		return sd_usage(e, "report needs at least one PROGRAM file (usage: setdose %s)",
 				cmd_report.usage);
@@ -111,7 +123,7 @@ static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 		goto out;
 	}
 	for (; done < n; done++) {
-		const char *path = argv[optind + done];
+		const char *path = argv[1 + done];
 		if (program_load(path, &ctx->lib, &progs[done], e))
 			goto out;
 		struct sd_covars cov = app_covars(ctx, progs[done].weeks);
@@ -138,20 +150,19 @@ out:
 const struct sd_cmd cmd_chart = {
 	.name = "chart",
 	.summary = "draw the curve (and a program's muscles) to PNG, SVG or PDF",
-	.usage = "chart --out FILE.png|svg|pdf [--program FILE] [--force]\n"
-		 "  --out FILE      the picture; its extension picks the format\n"
-		 "  --program FILE  mark the program's muscles at their weekly doses\n"
-		 "  --force         replace an existing FILE",
+	.usage = "chart --out FILE.png|svg|pdf [--program FILE] [--force]",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_chart,
+	.opts = chart_opts,
+	.nopts = OPT_N(chart_opts),
 };
 
 const struct sd_cmd cmd_report = {
 	.name = "report",
 	.summary = "a printable PDF report: one page per program with table and chart",
-	.usage = "report --out FILE.pdf [--force] PROGRAM...\n"
-		 "  --out FILE.pdf  the report; one A4 page per program\n"
-		 "  --force         replace an existing FILE.pdf",
+	.usage = "report --out FILE.pdf [--force] PROGRAM...",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_report,
+	.opts = report_opts,
+	.nopts = OPT_N(report_opts),
 };

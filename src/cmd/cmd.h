@@ -12,11 +12,22 @@
 #include <stdio.h>
 
 #include "../app/ctx.h"
+#include "opt.h"
 
 enum {
 	CMD_PROFILE = 1 << 0,
 	CMD_LIBRARY = 1 << 1,
 	CMD_DB = 1 << 2,
+};
+
+/* A subcommand ("block add"): its options (opt.h) and the function given argv from the
+ * subcommand's name on. */
+struct sd_sub {
+	const char *name;
+	const char *label;         /* "block add", for messages and help */
+	int (*fn)(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e);
+	const struct sd_optdef *opts;
+	int nopts;
 };
 
 struct sd_cmd {
@@ -26,6 +37,9 @@ struct sd_cmd {
 	const char *usage;         /* "audit [--summary] PROGRAM..." plus option lines */
 	int flags;
 	int (*exec)(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e);
+	const struct sd_optdef *opts;   /* the command's options, or NULL */
+	int nopts;
+	const struct sd_sub *subs;      /* subcommands (ended by a NULL name), or NULL */
 };
 
 extern const struct sd_cmd *const sd_commands[];  /* NULL-terminated */

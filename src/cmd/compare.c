@@ -1,6 +1,6 @@
 /* compare: programs side by side per muscle for one athlete, with the difference between them,
  * its interval and an interval-based decision against the SWC; totals per program. */
-#include <getopt.h>
+#include <stddef.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -31,44 +31,38 @@ static const char *weeks_note(const struct sd_ctx *ctx, const struct sd_program 
 	return buf;
 }
 
-/* One line, without getopt's own message: the option as typed and where the usage is. */
-static int bad_option(int argc, char **argv, struct sd_err *e)
-{
-	const char *bad = optind > 0 && optind <= argc ? argv[optind - 1] : "?";
-	if (optopt && !strncmp(bad, "--", 2) && !strchr(bad, '='))
-		return sd_usage(e, "option '%s' needs a value (see 'setdose help %s')", bad, "compare");
-	return sd_usage(e, "unknown option '%s' (see 'setdose help compare')", bad);
-}
+struct compare_opts {
+	int against_first;
+	double cap;
+};
+
+static const struct sd_optdef opts[] = {
+	{ "against-first", OPT_FLAG, 0, 0, offsetof(struct compare_opts, against_first), NULL, NULL,
+	  "compare each program with the first only (default: every pair)" },
+	{ "session-cap", OPT_NUM, SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX,
+	  offsetof(struct compare_opts, cap), NULL, "N",
+	  "warn when a muscle gets more than N fractional sets in one session\n"
+	  "(default 10; common practice, no source)" },
+};
 
 static int exec_compare(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "against-first", no_argument, NULL, 'a' },
-		{ "session-cap", required_argument, NULL, 'c' },
-		{ NULL, 0, NULL, 0 },
-	};
+	struct compare_opts o = { 0, SD_SESSION_CAP };
 	struct progarg pa = { NULL };
 	struct sd_program *prog = NULL;
 	struct sd_audit *au = NULL;
 	struct cmp_totals *tot = NULL;
 	struct cmp_diff *diff = NULL;
 	int (*pairs)[2] = NULL;
-	int c, n, against_first = 0, loaded = 0, audited = 0, npairs, rc = -1;
-	double cap = SD_SESSION_CAP;
+	int n, against_first, loaded = 0, audited = 0, npairs, rc = -1, firstarg = 1;
+	double cap;
 	char note[200];
 
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "+", longopts, NULL)) != -1) {
-		if (c == 'a')
-			against_first = 1;
-		else if (c == 'c') {
-			if (app_num("--session-cap", optarg, SD_SESSION_CAP_MIN, SD_SESSION_CAP_MAX, &cap, e))
-				return -1;
-		} else
-			return bad_option(argc, argv, e);
-	}
-	n = argc - optind;
+	if ((argc = opt_parse("compare", opts, OPT_N(opts), &o, argc, argv, e)) < 0)
+		return -1;
+	against_first = o.against_first;
+	cap = o.cap;
+	n = argc - firstarg;
 	if (n < 2)
 		return sd_usage(e, "compare needs at least two programs, got %d (see 'setdose help "
 				"compare')", n);
@@ -84,7 +78,7 @@ static int exec_compare(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 		goto done;
 	}
 	for (; loaded < n; loaded++)
-		if (progarg_load(ctx, &pa, argv[optind + loaded], &prog[loaded], e))
+		if (progarg_load(ctx, &pa, argv[firstarg + loaded], &prog[loaded], e))
 			goto done;
 
 	/* One athlete context for every program, so heterogeneity and moderators cancel. */
@@ -102,7 +96,7 @@ static int exec_compare(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 				   au[pairs[k][0]].row[m].dose.fractional,
 				   au[pairs[k][1]].row[m].dose.fractional, &diff[k * SD_NMUSCLES + m]);
 
-	struct cmp_view v = { n, (const char *const *)(argv + optind), prog, au, tot, npairs,
+	struct cmp_view v = { n, (const char *const *)(argv + firstarg), prog, au, tot, npairs,
 			      (const int (*)[2])pairs, diff, &ctx->profile, ctx->opt.level, cap,
 			      weeks_note(ctx, prog, n, cov.weeks, note, sizeof note) };
 	if (ctx->opt.format == SD_FMT_JSON)
@@ -135,9 +129,7 @@ const struct sd_cmd cmd_compare = {
 	.summary = "programs side by side per muscle: sets, gain, and whether the difference matters",
 	.usage = "compare [--against-first] [--session-cap N] PROGRAM PROGRAM [PROGRAM...]\n"
 		 "  PROGRAM          a program file, or the name of a stored template\n"
-		 "  --against-first  compare each program with the first only (default: every pair)\n"
-		 "  --session-cap N  warn when a muscle gets more than N fractional sets in one session\n"
-		 "                   (default 10; common practice, no source)\n"
+
 		 "Per muscle: each program's weekly fractional sets and predicted gain; per pair the\n"
 		 "difference (second minus first, percent as a ratio of gains) with its interval (at\n"
 		 "--level) and a decision read from the 1 - 2 alpha interval (90% for the usual 95%),\n"
@@ -153,4 +145,6 @@ const struct sd_cmd cmd_compare = {
 		 "the interval assumes every athlete shares the curve's slope.",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_compare,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

@@ -1,6 +1,6 @@
 /* curve: the dose-response curve as a table and a terminal plot, optionally with a program's
  * muscles marked on it. */
-#include <getopt.h>
+#include <stddef.h>
 #include <langinfo.h>
 #include <math.h>
 #include <stdlib.h>
@@ -164,40 +164,35 @@ static int print_plot(struct sd_ctx *ctx, const struct sd_covars *cov, const cha
 	return rc;
 }
 
+struct curve_opts {
+	const char *program;
+	double step;
+	int no_plot;
+};
+
+static const struct sd_optdef opts[] = {
+	{ "program", OPT_STR, 0, 0, offsetof(struct curve_opts, program), NULL, "FILE",
+	  "mark the program's muscles on the plot" },
+	{ "step", OPT_NUM, 0.1, 10, offsetof(struct curve_opts, step), NULL, "SETS",
+	  "table step in weekly fractional sets (default 1)" },
+	{ "no-plot", OPT_FLAG, 0, 0, offsetof(struct curve_opts, no_plot), NULL, NULL, "the table only" },
+};
+
 static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "program", required_argument, NULL, 'p' },
-		{ "step", required_argument, NULL, 's' },
-		{ "no-plot", no_argument, NULL, 'n' },
-		{ NULL, 0, NULL, 0 },
-	};
-	const char *program = NULL;
-	double step = 1;
-	int c, plot = 1;
-	char *end;
+	struct curve_opts o = { NULL, 1, 0 };
+	const char *program;
+	double step;
+	int plot;
 	struct sd_covars cov;
 
-	optind = 0;
-	while ((c = getopt_long(argc, argv, "+", longopts, NULL)) != -1) {
-		switch (c) {
-		case 'p':
-			program = optarg;
-			break;
-		case 's':
-			step = strtod(optarg, &end);
-			if (end == optarg || *end || !(step >= 0.1 && step <= 10))
-				return sd_usage(e, "--step wants a number from 0.1 to 10, not '%s'", optarg);
-			break;
-		case 'n':
-			plot = 0;
-			break;
-		default:
-			return sd_usage(e, "usage: setdose %s", cmd_curve.usage);
-		}
-	}
-	if (optind < argc)
-		return sd_usage(e, "curve takes no arguments besides options, got '%s'", argv[optind]);
+	if ((argc = opt_parse("curve", opts, OPT_N(opts), &o, argc, argv, e)) < 0)
+		return -1;
+	if (argc > 1)
+		return sd_usage(e, "curve takes no arguments besides options, got '%s'", argv[1]);
+	program = o.program;
+	step = o.step;
+	plot = !o.no_plot;
 	cov = app_covars(ctx, 0);
 	if (program) {
 		/* The program's own block length applies when --weeks is not given. */
@@ -218,10 +213,9 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 const struct sd_cmd cmd_curve = {
 	.name = "curve",
 	.summary = "the dose-response curve with its three bands (curve, group, athlete)",
-	.usage = "curve [--program FILE] [--step SETS] [--no-plot]\n"
-		 "  --program FILE  mark the program's muscles on the plot\n"
-		 "  --step SETS     table step in weekly fractional sets (default 1)\n"
-		 "  --no-plot       the table only",
+	.usage = "curve [--program FILE] [--step SETS] [--no-plot]",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_curve,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

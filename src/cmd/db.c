@@ -1,5 +1,4 @@
 /* db: where the database is, whether it is sound, and an online backup of it. */
-#include <getopt.h>
 #include <stdio.h>
 #include <string.h>
 
@@ -22,26 +21,20 @@ static int do_check(struct sd_ctx *ctx, struct sd_db *db, struct sd_err *e)
 	return 0;
 }
 
-/* FILE [--force] after the subcommand's name. */
-static int target_args(int argc, char **argv, const char **file, int *force, struct sd_err *e)
-{
-	static const struct option longopts[] = {
-		{ "force", no_argument, NULL, 'f' },
-		{ NULL, 0, NULL, 0 },
-	};
-	int c;
+static const struct sd_optdef target_opts[] = {
+	{ "force", OPT_FLAG, 0, 0, 0, NULL, NULL, "replace an existing FILE" },
+};
 
+/* FILE [--force] after the subcommand's name. */
+static int target_args(const char *label, int argc, char **argv, const char **file, int *force,
+		       struct sd_err *e)
+{
 	*force = 0;
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		if (c != 'f')
-			return dbu_badopt(&cmd_db, argc, argv, e);
-		*force = 1;
-	}
-	if (optind != argc - 1)
+	if ((argc = opt_parse(label, target_opts, OPT_N(target_opts), force, argc, argv, e)) < 0)
+		return -1;
+	if (argc != 2)
 		return usage(e);
-	*file = argv[optind];
+	*file = argv[1];
 	return 0;
 }
 
@@ -51,10 +44,10 @@ static int do_backup(struct sd_ctx *ctx, struct sd_db *db, int argc, char **argv
 		     struct sd_err *e)
 {
 	struct sf_file sf;
-	const char *file;
+	const char *file = NULL;
 	int force;
 
-	if (target_args(argc, argv, &file, &force, e) || sf_open(&sf, file, force, e))
+	if (target_args("db backup", argc, argv, &file, &force, e) || sf_open(&sf, file, force, e))
 		return -1;
 	if (sf_finish(&sf, db_backup(db, sf.tmp, file, e), e))
 		return -1;
@@ -68,10 +61,10 @@ static int do_recover(struct sd_ctx *ctx, const char *path, int argc, char **arg
 {
 	struct db_recovery r;
 	struct sf_file sf;
-	const char *file;
+	const char *file = NULL;
 	int force;
 
-	if (target_args(argc, argv, &file, &force, e) || sf_open(&sf, file, force, e))
+	if (target_args("db recover", argc, argv, &file, &force, e) || sf_open(&sf, file, force, e))
 		return -1;
 	if (sf_finish(&sf, db_recover(path, sf.tmp, file, &r, e), e))
 		return -1;
@@ -92,6 +85,10 @@ static int exec_db(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	int rc;
 
 	if (app_db_path(ctx, path, sizeof path, e))
+		return -1;
+	if ((!strcmp(sub, "path") || !strcmp(sub, "check")) &&
+	    (argc = opt_parse(!strcmp(sub, "path") ? "db path" : "db check", NULL, 0, NULL, argc - 1,
+			      argv + 1, e) + 1) < 1)
 		return -1;
 	/* 'path' does not open (nor create) the database. */
 	if (!strcmp(sub, "path")) {
@@ -114,6 +111,16 @@ static int exec_db(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	return rc;
 }
 
+/* For the option layer and help; exec_db dispatches itself ('path' and 'recover' open no
+ * database). */
+static const struct sd_sub subs[] = {
+	{ "path", "db path", NULL, NULL, 0 },
+	{ "check", "db check", NULL, NULL, 0 },
+	{ "backup", "db backup", NULL, target_opts, OPT_N(target_opts) },
+	{ "recover", "db recover", NULL, target_opts, OPT_N(target_opts) },
+	{ NULL, NULL, NULL, NULL, 0 },
+};
+
 const struct sd_cmd cmd_db = {
 	.name = "db",
 	.summary = "the database: its path, an integrity check, a checked backup, recovery",
@@ -127,4 +134,5 @@ const struct sd_cmd cmd_db = {
 		 "  FILE     an existing FILE is replaced only with --force",
 	.flags = 0,
 	.exec = exec_db,
+	.subs = subs,
 };

@@ -1,7 +1,6 @@
 #include "dbutil.h"
 
 #include <errno.h>
-#include <getopt.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -39,14 +38,6 @@ int dbu_confirm(const char *question, struct sd_err *e)
 
 
 
-int dbu_badopt(const struct sd_cmd *cmd, int argc, char **argv, struct sd_err *e)
-{
-	const char *bad = optind > 0 && optind <= argc ? argv[optind - 1] : NULL;
-
-	if (bad && bad[0] == '-')
-		return sd_usage(e, "unknown option '%s'; usage: setdose %s", bad, cmd->usage);
-	return sd_usage(e, "usage: setdose %s", cmd->usage);
-}
 
 int dbu_no_negatives(int argc, char **argv, struct sd_err *e)
 {
@@ -62,13 +53,17 @@ int dbu_no_negatives(int argc, char **argv, struct sd_err *e)
 }
 
 
-int dbu_subcommand(struct sd_ctx *ctx, const struct dbu_sub *subs, const struct sd_cmd *cmd,
-		   int argc, char **argv, struct sd_err *e)
+int dbu_subcommand(struct sd_ctx *ctx, const struct sd_cmd *cmd, int argc, char **argv,
+		   struct sd_err *e)
 {
 	const char *sub = argc > 1 ? argv[1] : "";
 
-	for (; subs->name; subs++)
-		if (!strcmp(sub, subs->name))
-			return subs->fn(ctx, argc - 1, argv + 1, e);
+	for (const struct sd_sub *s = cmd->subs; s->name; s++) {
+		if (strcmp(sub, s->name))
+			continue;
+		/* A subcommand without options still refuses one, with the one message. */
+		int n = s->nopts ? argc - 1 : opt_parse(s->label, NULL, 0, NULL, argc - 1, argv + 1, e);
+		return n < 0 ? -1 : s->fn(ctx, n, argv + 1, e);
+	}
 	return sd_usage(e, "usage: setdose %s", cmd->usage);
 }

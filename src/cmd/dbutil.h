@@ -12,18 +12,10 @@
 /* Asks QUESTION on the terminal; 1 when answered yes. Without a terminal it fails, naming
  * the option (--yes) that skips the question. */
 int dbu_confirm(const char *question, struct sd_err *e);
-/* One subcommand: its name and the function given argv from the subcommand's name on. */
-struct dbu_sub {
-	const char *name;
-	int (*fn)(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e);
-};
-/* Runs the subcommand named by argv[1] from the NULL-terminated table, or fails with the
- * command's usage. */
-int dbu_subcommand(struct sd_ctx *ctx, const struct dbu_sub *subs, const struct sd_cmd *cmd,
-		   int argc, char **argv, struct sd_err *e);
+/* Runs the subcommand of cmd->subs named by argv[1], or fails with the command's usage. */
+int dbu_subcommand(struct sd_ctx *ctx, const struct sd_cmd *cmd, int argc, char **argv,
+		   struct sd_err *e);
 
-/* The usage error for an unknown option (call with getopt's optind as left after '?'). */
-int dbu_badopt(const struct sd_cmd *cmd, int argc, char **argv, struct sd_err *e);
 /* Refuses a negative number among the arguments before getopt could take it for an option. */
 int dbu_no_negatives(int argc, char **argv, struct sd_err *e);
 #endif

@@ -1,5 +1,4 @@
 /* e1rm: a plain 1RM calculator over the published equations. */
-#include <getopt.h>
 #include <stdio.h>
 #include <string.h>
 
@@ -27,36 +26,45 @@ static int parse_load(const char *s, double *load, const char **unit, struct sd_
 	return app_num("LOAD", num, 1e-9, 1e6, load, e);
 }
 
+/* --formula NAME, or all (stored as E1RM_NFORMULAS). */
+static int opt_formula(void *dst, const struct sd_optdef *d, const char *v, struct sd_err *e)
+{
+	int *f = dst;
+	(void)d;
+	if (!strcmp(v, "all"))
+		*f = E1RM_NFORMULAS;
+	else if ((*f = e1rm_find(v)) < 0)
+		return sd_usage(e, "unknown formula '%s' (one of epley, brzycki, lander, lombardi, "
+				"mayhew, oconner, wathan, all)", v);
+	return 0;
+}
+
+static const struct sd_optdef opts[] = {
+	{ "formula", OPT_CALL, 0, 0, 0, opt_formula, "NAME|all",
+	  "brzycki (default), epley, lander, lombardi, mayhew, oconner, wathan,\n"
+	  "or all for a table of every equation with its source" },
+};
+
 static int exec_e1rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "formula", required_argument, NULL, 'f' },
-		{ NULL, 0, NULL, 0 },
-	};
 	static const char *const heads[] = { "<formula", "e1rm", "<source", "<equation" };
 	struct sd_rec *r;
 	const char *unit;
 	double load, est;
 	long long reps;
-	int c, f = E1RM_DEFAULT, all = 0, warn = 0;
+	int f = E1RM_DEFAULT, all, warn = 0;
 
 	if (dbu_no_negatives(argc, argv, e))
 		return -1;
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		if (c != 'f')
-			return dbu_badopt(&cmd_e1rm, argc, argv, e);
-		if (!strcmp(optarg, "all"))
-			all = 1;
-		else if ((f = e1rm_find(optarg)) < 0)
-			return sd_usage(e, "unknown formula '%s' (one of epley, brzycki, lander, "
-					"lombardi, mayhew, oconner, wathan, all)", optarg);
-	}
-	if (argc - optind != 2)
+	if ((argc = opt_parse("e1rm", opts, OPT_N(opts), &f, argc, argv, e)) < 0)
+		return -1;
+	all = f == E1RM_NFORMULAS;
+	if (all)
+		f = E1RM_DEFAULT;
+	if (argc != 3)
 		return sd_usage(e, "usage: setdose %s", cmd_e1rm.usage);
-	if (parse_load(argv[optind], &load, &unit, e) ||
-	    app_int("REPS", argv[optind + 1], 1, E1RM_MAX_REPS, &reps, e))
+	if (parse_load(argv[1], &load, &unit, e) ||
+	    app_int("REPS", argv[2], 1, E1RM_MAX_REPS, &reps, e))
 		return -1;
 	if (!all && ctx->opt.format == SD_FMT_TABLE) {
 		if (e1rm_estimate(f, load, (int)reps, &est, &warn, e))
@@ -89,9 +97,9 @@ const struct sd_cmd cmd_e1rm = {
 	.summary = "estimate a one-repetition maximum from a rep set",
 	.usage = "e1rm LOAD REPS [--formula NAME|all]\n"
 		 "  LOAD       any unit (100, 100kg, 225lb); the estimate is in the same unit\n"
-		 "  REPS       reps to failure, 1 to 20 (1 gives the load; above 10 a warning)\n"
-		 "  --formula  brzycki (default), epley, lander, lombardi, mayhew, oconner, wathan,\n"
-		 "             or all for a table of every equation with its source",
+		 "  REPS       reps to failure, 1 to 20 (1 gives the load; above 10 a warning)",
 	.flags = 0,
 	.exec = exec_e1rm,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

@@ -1,7 +1,7 @@
 /* effects: adds lnRR effect sizes (yi) and their sampling variances (vi) to a table of group
  * summaries, two-group or pre-post. */
 #include <errno.h>
-#include <getopt.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -10,6 +10,7 @@
 #include "../io/effects_io.h"
 #include "../io/safefile.h"
 #include "../io/table.h"
+#include "../app/parse.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_effects;
@@ -210,87 +211,71 @@ done:
 	return rc;
 }
 
+static int opt_design(void *dst, const struct sd_optdef *d, const char *v, struct sd_err *e)
+{
+	struct job *j = dst;
+	(void)d;
+	if (!strcmp(v, "two-group"))
+		j->design = TWO_GROUP;
+	else if (!strcmp(v, "pre-post"))
+		j->design = PRE_POST;
+	else
+		return sd_usage(e, "--design wants two-group or pre-post, not '%s'", v);
+	return 0;
+}
+
+static int opt_rdefault(void *dst, const struct sd_optdef *d, const char *v, struct sd_err *e)
+{
+	struct job *j = dst;
+	(void)d;
+	if (app_num("--r-default", v, -1, 1, &j->r_default, e))
+		return -1;
+	j->r_default_set = 1;
+	return 0;
+}
+
+#define JO(f) offsetof(struct job, f)
+#define COL(n, c) { n, OPT_STR, 0, 0, JO(name[c]), NULL, "COL", "the column of " n }
+static const struct sd_optdef opts[] = {
+	{ "design", OPT_CALL, 0, 0, 0, opt_design, "D",
+	  "two-group or pre-post (default: from the columns present)" },
+	{ "r-default", OPT_CALL, 0, 0, 0, opt_rdefault, "R",
+	  "pre-post correlation where r is missing (marked in the\n"
+	  "r_source column)" },
+	{ "output", OPT_STR, 0, 0, JO(out), NULL, "FILE",
+	  "write the CSV to FILE instead of standard output" },
+	{ "force", OPT_FLAG, 0, 0, JO(force), NULL, NULL, "replace an existing --output FILE" },
+	COL("m1", C_M1), COL("sd1", C_SD1), COL("n1", C_N1), COL("m2", C_M2), COL("sd2", C_SD2),
+	COL("n2", C_N2), COL("m-pre", C_MPRE), COL("m-post", C_MPOST), COL("sd-pre", C_SDPRE),
+	COL("sd-post", C_SDPOST), COL("n", C_N), COL("r", C_R),
+};
+#undef COL
+#undef JO
+
 static int exec_effects(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	enum { O_DESIGN = 500, O_RDEF, O_OUT, O_FORCE, O_COL };
-	static const struct option longopts[] = {
-		{ "force", no_argument, NULL, O_FORCE },
-		{ "design", required_argument, NULL, O_DESIGN },
-		{ "r-default", required_argument, NULL, O_RDEF },
-		{ "output", required_argument, NULL, O_OUT },
-		{ "m1", required_argument, NULL, O_COL + C_M1 },
-		{ "sd1", required_argument, NULL, O_COL + C_SD1 },
-		{ "n1", required_argument, NULL, O_COL + C_N1 },
-		{ "m2", required_argument, NULL, O_COL + C_M2 },
-		{ "sd2", required_argument, NULL, O_COL + C_SD2 },
-		{ "n2", required_argument, NULL, O_COL + C_N2 },
-		{ "m-pre", required_argument, NULL, O_COL + C_MPRE },
-		{ "m-post", required_argument, NULL, O_COL + C_MPOST },
-		{ "sd-pre", required_argument, NULL, O_COL + C_SDPRE },
-		{ "sd-post", required_argument, NULL, O_COL + C_SDPOST },
-		{ "n", required_argument, NULL, O_COL + C_N },
-		{ "r", required_argument, NULL, O_COL + C_R },
-		{ NULL, 0, NULL, 0 },
-	};
 	struct job j = { .design = AUTO };
-	char *end;
-	int c;
 
 	for (int k = 0; k < NCOLS; k++)
 		j.name[k] = col_default[k];
-	optind = 0;
-	while ((c = getopt_long(argc, argv, "o:", longopts, NULL)) != -1) {
-		if (c >= O_COL && c < O_COL + NCOLS) {
-			j.name[c - O_COL] = optarg;
-			continue;
-		}
-		switch (c) {
-		case O_DESIGN:
-			if (!strcmp(optarg, "two-group"))
-				j.design = TWO_GROUP;
-			else if (!strcmp(optarg, "pre-post"))
-				j.design = PRE_POST;
-			else
-				return sd_usage(e, "--design wants two-group or pre-post, not '%s'", optarg);
-			break;
-		case O_RDEF:
-			errno = 0;
-			j.r_default = strtod(optarg, &end);
-			if (end == optarg || *end || errno || !(j.r_default >= -1 && j.r_default <= 1))
-				return sd_usage(e, "--r-default wants a correlation from -1 to 1, not '%s'",
-						optarg);
-			j.r_default_set = 1;
-			break;
-		case 'o':
-		case O_OUT:
-			j.out = optarg;
-			break;
-		case O_FORCE:
-			j.force = 1;
-			break;
-		default:
-			return sd_usage(e, "usage: setdose %s", cmd_effects.usage);
-		}
-	}
-	if (argc - optind != 1)
+	if ((argc = opt_parse("effects", opts, OPT_N(opts), &j, argc, argv, e)) < 0)
+		return -1;
+	if (argc != 2)
 		return sd_usage(e, "usage: setdose %s", cmd_effects.usage);
-	return run(ctx, &j, argv[optind], e);
+	return run(ctx, &j, argv[1], e);
 }
 
 const struct sd_cmd cmd_effects = {
 	.name = "effects",
 	.summary = "add lnRR effect sizes and sampling variances to a table of group summaries",
 	.usage = "effects [options] INPUT.csv\n"
-		 "  --design D         two-group or pre-post (default: from the columns present)\n"
 		 "  two-group (Hedges, Gurevitch & Curtis 1999): columns m1 sd1 n1 m2 sd2 n2,\n"
 		 "                     renamed with --m1 COL ... --n2 COL; yi = ln(m1/m2)\n"
 		 "  pre-post (Lajeunesse 2011): columns m_pre m_post sd_pre sd_post n r, renamed\n"
 		 "                     with --m-pre COL --m-post COL --sd-pre COL --sd-post COL\n"
-		 "                     --n COL --r COL; yi = ln(m_post/m_pre)\n"
-		 "  --r-default R      pre-post correlation where r is missing (marked in the\n"
-		 "                     r_source column)\n"
-		 "  -o, --output FILE  write the CSV to FILE instead of standard output\n"
-		 "  --force            replace an existing --output FILE",
+		 "                     --n COL --r COL; yi = ln(m_post/m_pre)",
 	.flags = 0,
 	.exec = exec_effects,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

@@ -1,5 +1,5 @@
 /* exercises: the exercise library, optionally filtered. */
-#include <getopt.h>
+#include <stddef.h>
 #include <stdlib.h>
 #include <string.h>
 #include <strings.h>
@@ -35,32 +35,40 @@ static int matches(const struct sd_exercise *x, const char *pat)
 	return 0;
 }
 
+struct ex_opts {
+	int list_muscles, only;
+};
+
+static int opt_muscle(void *dst, const struct sd_optdef *d, const char *v, struct sd_err *e)
+{
+	(void)d;
+	if ((((struct ex_opts *)dst)->only = muscle_find(v)) < 0)
+		return sd_usage(e, "unknown muscle '%s' (see 'setdose exercises --muscles')", v);
+	return 0;
+}
+
+static const struct sd_optdef opts[] = {
+	{ "muscles", OPT_FLAG, 0, 0, offsetof(struct ex_opts, list_muscles), NULL, NULL,
+	  "list the muscle groups" },
+	{ "muscle", OPT_CALL, 0, 0, 0, opt_muscle, "NAME", "only the exercises that train NAME" },
+};
+
 static int exec_exercises(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "muscles", no_argument, NULL, 'm' },
-		{ "muscle", required_argument, NULL, 'M' },
-		{ NULL, 0, NULL, 0 },
-	};
 	static const char *const heads[] = { "<exercise", "<kind", "<direct", "<indirect", "<aliases" };
-	int c, list_muscles = 0, only = -1;
+	struct ex_opts o = { 0, -1 };
+	int list_muscles, only;
 	const char *pat = NULL;
 	struct sd_table *t;
 
-	optind = 0;
-	while ((c = getopt_long(argc, argv, "+", longopts, NULL)) != -1) {
-		if (c == 'm')
-			list_muscles = 1;
-		else if (c == 'M') {
-			if ((only = muscle_find(optarg)) < 0)
-				return sd_usage(e, "unknown muscle '%s' (see 'setdose exercises --muscles')", optarg);
-		} else
-			return sd_usage(e, "usage: setdose %s", cmd_exercises.usage);
-	}
-	if (optind < argc)
-		pat = argv[optind++];
-	if (optind < argc)
+	if ((argc = opt_parse("exercises", opts, OPT_N(opts), &o, argc, argv, e)) < 0)
+		return -1;
+	list_muscles = o.list_muscles;
+	only = o.only;
+	if (argc > 2)
 		return sd_usage(e, "exercises takes one PATTERN at most");
+	if (argc == 2)
+		pat = argv[1];
 	if (list_muscles) {
 		for (int m = 0; m < SD_NMUSCLES; m++)
 			fprintf(ctx->out, "%s\n", muscle_name(m));
@@ -99,9 +107,9 @@ const struct sd_cmd cmd_exercises = {
 	.name = "exercises",
 	.summary = "list the exercise library (direct and indirect muscles)",
 	.usage = "exercises [PATTERN] [--muscle MUSCLE] [--muscles]\n"
-		 "  PATTERN          show exercises whose name or alias contains it\n"
-		 "  --muscle MUSCLE  only exercises that train MUSCLE\n"
-		 "  --muscles        list the muscle groups",
+		 "  PATTERN          show exercises whose name or alias contains it",
 	.flags = CMD_LIBRARY,
 	.exec = exec_exercises,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

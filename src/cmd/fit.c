@@ -1,7 +1,7 @@
 /* fit: multilevel meta-regression of an effect-size table; the dose-form comparison; writing
  * the fit as a dose-response profile. */
 #include <errno.h>
-#include <getopt.h>
+#include <stddef.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -512,79 +512,78 @@ static int fit_finite(const char *path, const struct ef_model *mod, const struct
 	return 0;
 }
 
+struct fit_opts {
+	struct mrm m;            /* first: the shared model options fill it (mrmodel.h) */
+	const char *forms, *write, *name;
+	int force;
+};
+
+#define FO(f) offsetof(struct fit_opts, f)
+static const struct sd_optdef opts[] = {
+	MRM_OPTDEFS,
+	{ "forms", OPT_STR, 0, 0, FO(forms), NULL, "all",
+	  "fit every dose form by ML; rank by AIC, BIC and\n"
+	  "leave-one-study-out prediction error" },
+	{ "write", OPT_STR, 0, 0, FO(write), NULL, "FILE",
+	  "write the fit as a dose-response profile (moderator ranges\n"
+	  "from the data; the between-athlete variance, which\n"
+	  "study-level effects cannot estimate, copied from the active\n"
+	  "profile and marked so)" },
+	{ "force", OPT_FLAG, 0, 0, FO(force), NULL, NULL, "replace an existing --write FILE" },
+	{ "name", OPT_STR, 0, 0, FO(name), NULL, "NAME", "the written profile's name (default fitted)" },
+};
+#undef FO
+
 static int exec_fit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	enum { O_FORMS = 400, O_WRITE, O_NAME, O_FORCE };
-	static const struct option longopts[] = {
-		MRM_LONGOPTS,
-		{ "force", no_argument, NULL, O_FORCE },
-		{ "forms", required_argument, NULL, O_FORMS },
-		{ "write", required_argument, NULL, O_WRITE },
-		{ "name", required_argument, NULL, O_NAME },
-		{ NULL, 0, NULL, 0 },
-	};
+	struct fit_opts o;
 	struct mrm m;
 	struct ef_table t;
 	struct ef_model mod;
 	struct mr_fit f;
-	const char *write = NULL, *name = "fitted";
+	const char *write, *name;
 	double avar = 0;
-	int c, forms = 0, force = 0, rc = -1;
+	int forms, force, rc = -1, firstarg = 1;
 
-	mrm_init(&m);
-	optind = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		int r = mrm_option(&m, c, optarg, e);
-		if (r < 0)
-			return -1;
-		if (r)
-			continue;
-		switch (c) {
-		case O_FORMS:
-			if (strcmp(optarg, "all"))
-				return sd_usage(e, "--forms wants 'all', not '%s'", optarg);
-			forms = 1;
-			break;
-		case O_WRITE:
-			write = optarg;
-			break;
-		case O_FORCE:
-			force = 1;
-			break;
-		case O_NAME:
-			if (!*optarg || strlen(optarg) >= sizeof ((struct sd_profile *)0)->name)
-				return sd_usage(e, "--name wants 1 to 63 characters");
-			name = optarg;
-			break;
-		default:
-			return sd_usage(e, "usage: setdose %s", cmd_fit.usage);
-		}
-	}
-	if (argc - optind != 1)
+	memset(&o, 0, sizeof o);
+	mrm_init(&o.m);
+	o.name = "fitted";
+	if ((argc = opt_parse("fit", opts, OPT_N(opts), &o, argc, argv, e)) < 0)
+		return -1;
+	if (argc != 2)
 		return sd_usage(e, "usage: setdose %s", cmd_fit.usage);
+	if (o.forms && strcmp(o.forms, "all"))
+		return sd_usage(e, "--forms wants 'all', not '%s'", o.forms);
+	if (!*o.name || strlen(o.name) >= sizeof ((struct sd_profile *)0)->name)
+		return sd_usage(e, "--name wants 1 to 63 characters");
+	m = o.m;
+	write = o.write;
+	name = o.name;
+	forms = o.forms != NULL;
+	force = o.force;
 	if (forms && write)
 		return sd_usage(e, "--write needs one dose form; drop --forms all");
-	if (mrm_load(&m, argv[optind], &t, &mod, e))
+	if (mrm_load(&m, argv[firstarg], &t, &mod, e))
 		return -1;
 	if (forms) {
-		rc = compare_forms(ctx, argv[optind], &m, &mod, e);
+		rc = compare_forms(ctx, argv[firstarg], &m, &mod, e);
 		goto done;
 	}
-	struct mr_opts o = mrm_fit_opts(&m, ctx);
-	if (mr_fit(&mod.d, &o, &f, e)) {
+	struct mr_opts fo = mrm_fit_opts(&m, ctx);
+	if (mr_fit(&mod.d, &fo, &f, e)) {
 		/* A fit that ran but did not converge is shown, then reported as a failure. */
 		struct sd_err ignore;
 		if (f.nstudy && !f.converged && ctx->opt.format == SD_FMT_TABLE &&
-		    !fit_finite(argv[optind], &mod, &f, &ignore))
-			print_fit(ctx, argv[optind], &m, &mod, &f);
+		    !fit_finite(argv[firstarg], &mod, &f, &ignore))
+			print_fit(ctx, argv[firstarg], &m, &mod, &f);
 		goto done;
 	}
 	/* The profile is written before anything is printed, so no result is shown for a
 	 * write that then fails. */
-	if (fit_finite(argv[optind], &mod, &f, e) ||
-	    (write && write_profile(ctx, argv[optind], write, force, name, &m, &mod, &f, &avar, e)))
+	if (fit_finite(argv[firstarg], &mod, &f, e) ||
+	    (write && write_profile(ctx, argv[firstarg], write, force, name, &m, &mod, &f, &avar, e)))
 		goto done;
-	print_fit(ctx, argv[optind], &m, &mod, &f);
+	print_fit(ctx, argv[firstarg], &m, &mod, &f);
 	if (write)
 		wrote_profile(ctx, write, &m, &mod, &f, avar);
 	rc = 0;
@@ -598,16 +597,10 @@ const struct sd_cmd cmd_fit = {
 	.name = "fit",
 	.summary = "multilevel meta-regression of an effect-size table; compare dose forms",
 	.usage = "fit [options] EFFECTS.csv\n"
-		 MRM_USAGE "\n"
-		 "  --forms all        fit every dose form by ML; rank by AIC, BIC and\n"
-		 "                     leave-one-study-out prediction error\n"
-		 "  --write FILE       write the fit as a dose-response profile (moderator ranges\n"
-		 "                     from the data; the between-athlete variance, which\n"
-		 "                     study-level effects cannot estimate, copied from the active\n"
-		 "                     profile and marked so)\n"
-		 "  --force            replace an existing --write FILE\n"
-		 "  --name NAME        the written profile's name (default fitted)\n"
-		 "  (global --swc PCT sets the written profile's SWC; default 3%)",
+		 "  (global --level sets the interval level; global --swc PCT the written\n"
+		 "  profile's SWC, default 3%)",
 	.flags = 0,
 	.exec = exec_fit,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

@@ -1,7 +1,9 @@
 /* Shared model options of `fit` and `slopes`. */
 #include "mrmodel.h"
 
-#include <getopt.h>
+#include "../app/parse.h"
+
+
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -35,43 +37,46 @@ static int split_mods(struct mrm *m, const char *arg, struct sd_err *e)
 	return 0;
 }
 
-int mrm_option(struct mrm *m, int c, const char *arg, struct sd_err *e)
+int mrm_optcall(void *dst, const struct sd_optdef *d, const char *arg, struct sd_err *e)
 {
-	char *end;
+	struct mrm *m = dst;
+	const char *n = d->name;
+	long long v;
 	int f;
 
-	switch (c) {
-	case MRM_STUDY: m->spec.study = arg; return 1;
-	case MRM_EFFECT: m->spec.effect = arg; return 1;
-	case MRM_DOSE: m->spec.dose = arg; return 1;
-	case MRM_YI: m->spec.yi = arg; return 1;
-	case MRM_VI: m->spec.vi = arg; return 1;
-	case MRM_SLOPES: m->spec.slopes = 1; return 1;
-	case MRM_MODS: return split_mods(m, arg, e) ? -1 : 1;
-	case MRM_FORM:
+	if (!strcmp(n, "study"))
+		m->spec.study = arg;
+	else if (!strcmp(n, "effect"))
+		m->spec.effect = arg;
+	else if (!strcmp(n, "dose"))
+		m->spec.dose = arg;
+	else if (!strcmp(n, "yi"))
+		m->spec.yi = arg;
+	else if (!strcmp(n, "vi"))
+		m->spec.vi = arg;
+	else if (!strcmp(n, "slopes"))
+		m->spec.slopes = 1;
+	else if (!strcmp(n, "mods"))
+		return split_mods(m, arg, e);
+	else if (!strcmp(n, "form")) {
 		if ((f = form_find(arg)) < 0)
 			return sd_usage(e, "--form wants linear, log, sqrt or reciprocal, not '%s'", arg);
 		m->spec.form = (enum sd_form)f;
-		return 1;
-	case MRM_METHOD:
+	} else if (!strcmp(n, "method")) {
 		if (!strcmp(arg, "reml"))
 			m->method = MR_REML;
 		else if (!strcmp(arg, "ml"))
 			m->method = MR_ML;
 		else
 			return sd_usage(e, "--method wants reml or ml, not '%s'", arg);
-		return 1;
-	case MRM_TEST:
+	} else if (!strcmp(n, "test")) {
 		if (strcmp(arg, "z") && strcmp(arg, "t"))
 			return sd_usage(e, "--test wants z or t, not '%s'", arg);
 		m->t_test = !strcmp(arg, "t");
-		return 1;
-	case MRM_MAXITER:
-		m->max_iter = (int)strtol(arg, &end, 10);
-		if (end == arg || *end || m->max_iter < 1 || m->max_iter > 100000)
-			return sd_usage(e, "--max-iter wants a whole number from 1 to 100000, not '%s'",
-					arg);
-		return 1;
+	} else if (!strcmp(n, "max-iter")) {
+		if (app_int("--max-iter", arg, 1, 100000, &v, e))
+			return -1;
+		m->max_iter = (int)v;
 	}
 	return 0;
 }

@@ -6,39 +6,6 @@
 #include "../io/effects_io.h"
 #include "cmd.h"
 
-enum {
-	MRM_STUDY = 300, MRM_EFFECT, MRM_DOSE, MRM_YI, MRM_VI, MRM_FORM, MRM_MODS, MRM_SLOPES,
-	MRM_METHOD, MRM_TEST, MRM_MAXITER,
-};
-
-/* getopt_long entries for the shared options, to splice into a command's own table. */
-#define MRM_LONGOPTS \
-	{ "study", required_argument, NULL, MRM_STUDY }, \
-	{ "effect", required_argument, NULL, MRM_EFFECT }, \
-	{ "dose", required_argument, NULL, MRM_DOSE }, \
-	{ "yi", required_argument, NULL, MRM_YI }, \
-	{ "vi", required_argument, NULL, MRM_VI }, \
-	{ "form", required_argument, NULL, MRM_FORM }, \
-	{ "mods", required_argument, NULL, MRM_MODS }, \
-	{ "slopes", no_argument, NULL, MRM_SLOPES }, \
-	{ "method", required_argument, NULL, MRM_METHOD }, \
-	{ "test", required_argument, NULL, MRM_TEST }, \
-	{ "max-iter", required_argument, NULL, MRM_MAXITER }
-
-/* Usage lines for those options. */
-#define MRM_USAGE \
-	"  --study COL        study (cluster) column (default study)\n" \
-	"  --effect COL       effect-level column: a second random level nested in studies\n" \
-	"  --dose COL         weekly fractional sets column (default sets)\n" \
-	"  --yi COL, --vi COL effect size and sampling variance columns (default yi, vi)\n" \
-	"  --form F           dose form: linear, log, sqrt or reciprocal (default reciprocal)\n" \
-	"  --mods A,B         numeric or 0/1 moderator columns, entered raw\n" \
-	"  --slopes           random study slopes on the dose term (2x2 unstructured)\n" \
-	"  --method M         reml (default) or ml\n" \
-	"  --test T           z (default) or t with df = studies - coefficients\n" \
-	"  --max-iter N       iteration cap of each optimiser stage\n" \
-	"  (global --level sets the interval level)"
-
 struct mrm {
 	struct ef_spec spec;
 	char mods[512];              /* storage for spec.mods */
@@ -47,8 +14,24 @@ struct mrm {
 };
 
 void mrm_init(struct mrm *m);
-/* Applies one shared option: 1 when c was one, 0 when it is not, -1 on a bad value. */
-int mrm_option(struct mrm *m, int c, const char *arg, struct sd_err *e);
+
+/* The shared options, to splice into a command's option table (opt.h). */
+#define MRM_OPT(n, a, h) { n, OPT_CALL, 0, 0, 0, mrm_optcall, a, h }
+#define MRM_OPTDEFS \
+	MRM_OPT("study", "COL", "study (cluster) column (default study)"), \
+	MRM_OPT("effect", "COL", "effect-level column: a second random level nested in studies"), \
+	MRM_OPT("dose", "COL", "weekly fractional sets column (default sets)"), \
+	MRM_OPT("yi", "COL", "effect size column (default yi)"), \
+	MRM_OPT("vi", "COL", "sampling variance column (default vi)"), \
+	MRM_OPT("form", "F", "dose form: linear, log, sqrt or reciprocal (default reciprocal)"), \
+	MRM_OPT("mods", "A,B", "numeric or 0/1 moderator columns, entered raw"), \
+	MRM_OPT("slopes", NULL, "random study slopes on the dose term (2x2 unstructured)"), \
+	MRM_OPT("method", "M", "reml (default) or ml"), \
+	MRM_OPT("test", "T", "z (default) or t with df = studies - coefficients"), \
+	MRM_OPT("max-iter", "N", "iteration cap of each optimiser stage")
+/* Applies one shared option (opt.h OPT_CALL); dst is the command's options struct, whose
+ * first member is its struct mrm. */
+int mrm_optcall(void *dst, const struct sd_optdef *d, const char *arg, struct sd_err *e);
 /* Reads the table at path and builds the model data. */
 int mrm_load(const struct mrm *m, const char *path, struct ef_table *t, struct ef_model *mod,
 	     struct sd_err *e);

@@ -1,5 +1,4 @@
 /* program: program templates stored in the database, kept as their source text. */
-#include <getopt.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -77,43 +76,38 @@ done:
 	return rc;
 }
 
+static const struct sd_optdef add_opts[] = {
+	{ "name", OPT_STR, 0, 0, 0, NULL, "NAME", "store the template under NAME (one FILE only)" },
+};
+
 static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "name", required_argument, NULL, 'n' },
-		{ NULL, 0, NULL, 0 },
-	};
 	const char *name = NULL;
 	char (*said)[600] = NULL;
-	int c, rc = -1;
+	int rc = -1, firstarg = 1;   /* the files: argv[1..] once the options are read */
 
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		if (c != 'n')
-			return dbu_badopt(&cmd_program, argc, argv, e);
-		name = optarg;
-	}
-	if (optind >= argc)
+	if ((argc = opt_parse("program add", add_opts, OPT_N(add_opts), &name, argc, argv, e)) < 0)
+		return -1;
+	if (firstarg >= argc)
 		return usage(e);
-	if (name && argc - optind > 1)
+	if (name && argc - firstarg > 1)
 		return sd_usage(e, "--name names one program; give one FILE with it");
 	/* All files in one transaction: either every template is stored or none is, and
 	 * "added" is said only after the commit. */
-	if (!(said = calloc((size_t)(argc - optind), sizeof *said)))
+	if (!(said = calloc((size_t)(argc - firstarg), sizeof *said)))
 		return sd_fail(e, "out of memory");
 	if (db_begin(ctx->db, e))
 		goto done;
-	for (int i = optind; i < argc; i++)
-		if (add_one(ctx, argv[i], name, said[i - optind], sizeof said[0], e))
+	for (int i = firstarg; i < argc; i++)
+		if (add_one(ctx, argv[i], name, said[i - firstarg], sizeof said[0], e))
 			goto done;
 	if (db_commit(ctx->db, e))
 		goto done;
 	if (ctx->opt.format == SD_FMT_TABLE) {
-		for (int i = 0; i < argc - optind; i++)
+		for (int i = 0; i < argc - firstarg; i++)
 			fputs(said[i], ctx->out);
-		if (argc - optind > 1)
-			fprintf(ctx->out, "added %d programs\n", argc - optind);
+		if (argc - firstarg > 1)
+			fprintf(ctx->out, "added %d programs\n", argc - firstarg);
 	}
 	rc = 0;
 done:
@@ -202,17 +196,17 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	return rc;
 }
 
-static const struct dbu_sub subs[] = {
-	{ "add", do_add },
-	{ "list", do_list },
-	{ "show", do_show },
-	{ "rm", do_rm },
-	{ NULL, NULL },
+static const struct sd_sub subs[] = {
+	{ "add", "program add", do_add, add_opts, OPT_N(add_opts) },
+	{ "list", "program list", do_list, NULL, 0 },
+	{ "show", "program show", do_show, NULL, 0 },
+	{ "rm", "program rm", do_rm, NULL, 0 },
+	{ NULL, NULL, NULL, NULL, 0 },
 };
 
 static int exec_program(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	return dbu_subcommand(ctx, subs, &cmd_program, argc, argv, e);
+	return dbu_subcommand(ctx, &cmd_program, argc, argv, e);
 }
 
 const struct sd_cmd cmd_program = {
@@ -229,4 +223,5 @@ const struct sd_cmd cmd_program = {
 		 "  rm       refuses while a block uses the template",
 	.flags = CMD_DB | CMD_LIBRARY,
 	.exec = exec_program,
+	.subs = subs,
 };

@@ -2,7 +2,7 @@
  * lift with a test near the block's start and one near its end, the observed change against
  * the curve's prediction for the dose of the lift's prime movers, and the athlete's personal
  * response (core/response.h has the model). */
-#include <getopt.h>
+#include <stddef.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -20,58 +20,38 @@ extern const struct sd_cmd cmd_response;
 
 struct rargs {
 	long long block;        /* 0: all */
-	int window;
+	long long window;
 	struct resp_opts ro;
 };
 
+#define RA(f) offsetof(struct rargs, f)
+static const struct sd_optdef opts[] = {
+	{ "block", OPT_INT, 1, SD_ID_MAX, RA(block), NULL, "ID",
+	  "show only this block's rows (the personal estimate uses all)" },
+	{ "priors", OPT_FLAG, 0, 0, RA(ro.priors_only), NULL, NULL,
+	  "use the stated priors even when the roster could estimate" },
+	{ "prior-sd", OPT_NUM, 1e-4, 2, RA(ro.prior_sd), NULL, "SD",
+	  "prior SD of the athlete's deviation, log scale (default: the\n"
+	  "square root of the profile's between-athlete variance)" },
+	{ "test-error", OPT_NUM, 0, 1, RA(ro.test_sd), NULL, "SD",
+	  "1RM test-retest error per test, log scale (default 0.03)" },
+	{ "window", OPT_INT, 0, 365, RA(window), NULL, "DAYS",
+	  "how near a test must be to a block's start or end (default 14)" },
+};
+#undef RA
+
+/* The options; the athlete is left in argv[1]. */
 static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "block", required_argument, NULL, 'b' },
-		{ "priors", no_argument, NULL, 'P' },
-		{ "prior-sd", required_argument, NULL, 'p' },
-		{ "test-error", required_argument, NULL, 't' },
-		{ "window", required_argument, NULL, 'w' },
-		{ NULL, 0, NULL, 0 },
-	};
-	long long v;
-	int c;
-
 	ra->block = 0;
 	ra->window = RESPD_WINDOW_DAYS;
 	ra->ro.test_sd = RESP_TEST_SD;
 	ra->ro.prior_sd = RESPD_PRIOR_PROFILE;
 	ra->ro.level = ctx->opt.level;
 	ra->ro.priors_only = 0;
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		switch (c) {
-		case 'b':
-			if (app_int("--block", optarg, 1, 0x7fffffffffffffffLL, &ra->block, e))
-				return -1;
-			break;
-		case 'p':
-			if (app_num("--prior-sd", optarg, 1e-4, 2, &ra->ro.prior_sd, e))
-				return -1;
-			break;
-		case 'P':
-			ra->ro.priors_only = 1;
-			break;
-		case 't':
-			if (app_num("--test-error", optarg, 0, 1, &ra->ro.test_sd, e))
-				return -1;
-			break;
-		case 'w':
-			if (app_int("--window", optarg, 0, 365, &v, e))
-				return -1;
-			ra->window = (int)v;
-			break;
-		default:
-			return dbu_badopt(&cmd_response, argc, argv, e);
-		}
-	}
-	if (optind != argc - 1)
+	if ((argc = opt_parse("response", opts, OPT_N(opts), ra, argc, argv, e)) < 0)
+		return -1;
+	if (argc != 2)
 		return sd_usage(e, "usage: setdose %s", cmd_response.usage);
 	return respd_check_opts(&ra->ro, e);
 }
@@ -136,7 +116,7 @@ static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const st
 	fprintf(ctx->out, "athlete %s (%s); profile %s; loads in %s\n", a->name,
 		a->trained ? "trained" : "untrained", ctx->profile.name, units_name(lb));
 	fprintf(ctx->out, "test error %.3f per 1RM test (log scale, --test-error), more when pre and "
-		"post come from different rep counts;\ntests within %d days of a block's start and end "
+		"post come from different rep counts;\ntests within %lld days of a block's start and end "
 		"(--window)\n", ra->ro.test_sd, ra->window);
 	print_vars(ctx->out, &ctx->profile, rs, ra->ro.prior_sd == RESPD_PRIOR_PROFILE);
 	fputc('\n', ctx->out);
@@ -184,7 +164,7 @@ static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const stru
 	}
 	snprintf(test, sizeof test, "%.6g", ra->ro.test_sd);
 	snprintf(level, sizeof level, "%.6g", ra->ro.level);
-	snprintf(window, sizeof window, "%d", ra->window);
+	snprintf(window, sizeof window, "%lld", ra->window);
 	snprintf(vars, sizeof vars,
 		 "{\"source\": \"%s\", \"athlete\": %.8f, \"block\": %.8f, \"block_cov_slope\": %.8f, "
 		 "\"block_slope\": %.8f, \"roster_athletes\": %d, \"roster_repeated\": %d, "
@@ -233,7 +213,7 @@ static int exec_response(struct sd_ctx *ctx, int argc, char **argv, struct sd_er
 
 	if (parse(ctx, argc, argv, &ra, e))
 		return -1;
-	if (respd_load(ctx, argv[optind], ra.block, ra.window, &ra.ro, &rs, e))
+	if (respd_load(ctx, argv[1], ra.block, (int)ra.window, &ra.ro, &rs, e))
 		return -1;
 	lb = app_lb(ctx, &rs.athlete);
 	if (!(r = rec_new(NCOLS, heads, ctx->opt.format))) {
@@ -276,13 +256,9 @@ const struct sd_cmd cmd_response = {
 		 "  hierarchical model (athlete, block, test error; the curve's error shared by all)\n"
 		 "  whose athlete and block variances are estimated by REML from every athlete's\n"
 		 "  observations once at least 10 athletes have them and 5 have two or more blocks,\n"
-		 "  else the stated priors (the output says which)\n"
-		 "  --block ID       show only this block's rows (the personal estimate uses all)\n"
-		 "  --priors         use the stated priors even when the roster could estimate\n"
-		 "  --prior-sd SD    prior SD of the athlete's deviation, log scale (default: the\n"
-		 "                   square root of the profile's between-athlete variance)\n"
-		 "  --test-error SD  1RM test-retest error per test, log scale (default 0.03)\n"
-		 "  --window DAYS    how near a test must be to a block's start or end (default 14)",
+		 "  else the stated priors (the output says which)",
 	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,
 	.exec = exec_response,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

@@ -1,6 +1,5 @@
 /* returns: what moving from a to b weekly fractional sets buys, for a grid of doses, and the
  * practical plateau. */
-#include <getopt.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -50,28 +49,27 @@ static void long_rows(struct sd_ctx *ctx, const double *d, int n, const struct s
 		}
 }
 
+static const struct sd_optdef opts[] = {
+	{ "doses", OPT_STR, 0, 0, 0, NULL, "LIST",
+	  "weekly fractional sets to compare, A,B,... (default 0,1,...,30 in steps)" },
+};
+
 static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "doses", required_argument, NULL, 'd' },
-		{ NULL, 0, NULL, 0 },
-	};
 	static const double dflt[] = { 0, 1, 2, 3, 4, 5, 6, 8, 10, 12, 15, 20, 25, 30 };
 	double d[MAX_DOSES];
-	int n = 0, c;
+	int n = 0;
+	const char *doses = NULL;
 	const struct sd_profile *p = &ctx->profile;
 	struct sd_covars cov = app_covars(ctx, 0);
 	double plateau = curve_plateau(p, &cov, 1.0);
 
-	optind = 0;
-	while ((c = getopt_long(argc, argv, "+", longopts, NULL)) != -1) {
-		if (c != 'd')
-			return sd_usage(e, "usage: setdose %s", cmd_returns.usage);
-		if (parse_doses(optarg, d, &n, p->dose_max, e))
-			return -1;
-	}
-	if (optind < argc)
-		return sd_usage(e, "returns takes no arguments besides options, got '%s'", argv[optind]);
+	if ((argc = opt_parse("returns", opts, OPT_N(opts), &doses, argc, argv, e)) < 0)
+		return -1;
+	if (argc > 1)
+		return sd_usage(e, "returns takes no arguments besides options, got '%s'", argv[1]);
+	if (doses && parse_doses(doses, d, &n, p->dose_max, e))
+		return -1;
 	if (!n)
 		for (size_t i = 0; i < sizeof dflt / sizeof *dflt && dflt[i] <= p->dose_max; i++)
 			d[n++] = dflt[i];
@@ -144,8 +142,9 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 const struct sd_cmd cmd_returns = {
 	.name = "returns",
 	.summary = "what more or fewer weekly sets buy, and the practical plateau",
-	.usage = "returns [--doses A,B,...]\n"
-		 "  --doses LIST  weekly fractional sets to compare (default 0,1,...,30 in steps)",
+	.usage = "returns [--doses A,B,...]",
 	.flags = CMD_PROFILE,
 	.exec = exec_returns,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

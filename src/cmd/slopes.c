@@ -1,6 +1,6 @@
 /* slopes: each study's raw within-study dose slope beside its shrunken (empirical-Bayes)
  * slope from the random-slope model, with a terminal picture of both sets of lines. */
-#include <getopt.h>
+#include <stddef.h>
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -235,42 +235,41 @@ static void print_table(struct sd_ctx *ctx, const struct ef_model *mod, const st
 	tbl_free(t);
 }
 
+struct slopes_opts {
+	struct mrm m;            /* first: the shared model options fill it (mrmodel.h) */
+	int no_plot;
+};
+
+static const struct sd_optdef opts[] = {
+	MRM_OPTDEFS,
+	{ "no-plot", OPT_FLAG, 0, 0, offsetof(struct slopes_opts, no_plot), NULL, NULL,
+	  "the table only" },
+};
+
 static int exec_slopes(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	enum { O_NOPLOT = 400 };
-	static const struct option longopts[] = {
-		MRM_LONGOPTS,
-		{ "no-plot", no_argument, NULL, O_NOPLOT },
-		{ NULL, 0, NULL, 0 },
-	};
+	struct slopes_opts o;
 	struct mrm m;
 	struct ef_table t;
 	struct ef_model mod;
 	struct mr_fit f;
 	struct mr_study *st = NULL;
-	int c, plot = 1, rc = -1;
+	int plot, rc = -1, firstarg = 1;
 	char desc[768];
 
-	mrm_init(&m);
-	optind = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		int r = mrm_option(&m, c, optarg, e);
-		if (r < 0)
-			return -1;
-		if (r)
-			continue;
-		if (c == O_NOPLOT)
-			plot = 0;
-		else
-			return sd_usage(e, "usage: setdose %s", cmd_slopes.usage);
-	}
-	if (argc - optind != 1)
-		return sd_usage(e, "usage: setdose %s", cmd_slopes.usage);
-	m.spec.slopes = 1;
-	if (mrm_load(&m, argv[optind], &t, &mod, e))
+	memset(&o, 0, sizeof o);
+	mrm_init(&o.m);
+	if ((argc = opt_parse("slopes", opts, OPT_N(opts), &o, argc, argv, e)) < 0)
 		return -1;
-	struct mr_opts o = mrm_fit_opts(&m, ctx);
-	if (mr_fit(&mod.d, &o, &f, e))
+	if (argc != 2)
+		return sd_usage(e, "usage: setdose %s", cmd_slopes.usage);
+	m = o.m;
+	plot = !o.no_plot;
+	m.spec.slopes = 1;
+	if (mrm_load(&m, argv[firstarg], &t, &mod, e))
+		return -1;
+	struct mr_opts fo = mrm_fit_opts(&m, ctx);
+	if (mr_fit(&mod.d, &fo, &f, e))
 		goto done;
 	if (!(st = calloc(f.nstudy, sizeof *st))) {
 		sd_fail(e, "out of memory");
@@ -290,7 +289,7 @@ static int exec_slopes(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 		fprintf(ctx->out, "study dose slopes in '%s': %d effects in %d studies\nmodel: %s\n"
 			"pooled dose slope %.4f (SE %.4f); slope sd %.4f; intercept-slope correlation "
 			"%s\nslopes are per unit of the dose term f(sets) (%s form); weight = share of "
-			"1'V^-1 1\n\n", argv[optind], f.n, f.nstudy, desc, f.beta[1], f.se[1],
+			"1'V^-1 1\n\n", argv[firstarg], f.n, f.nstudy, desc, f.beta[1], f.se[1],
 			sqrt(f.tau2_slope), rho, form_name(mod.form));
 		print_table(ctx, &mod, &f, st);
 		if (plot)
@@ -308,9 +307,10 @@ const struct sd_cmd cmd_slopes = {
 	.name = "slopes",
 	.summary = "raw and shrunken study dose slopes from the random-slope model",
 	.usage = "slopes [options] EFFECTS.csv\n"
-		 MRM_USAGE "\n"
-		 "  --no-plot          the table only\n"
-		 "  (the random-slope model is always fitted: --slopes is implied)",
+		 "  (the random-slope model is always fitted: --slopes is implied; global --level\n"
+		 "  sets the interval level)",
 	.flags = 0,
 	.exec = exec_slopes,
+	.opts = opts,
+	.nopts = OPT_N(opts),
 };

@@ -1,5 +1,5 @@
 /* test: strength tests (a load lifted for some reps) and the 1RM they estimate. */
-#include <getopt.h>
+#include <stddef.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -16,39 +16,42 @@ static int usage(struct sd_err *e)
 	return sd_usage(e, "usage: setdose %s", cmd_test.usage);
 }
 
+struct test_opts {
+	const char *date;
+	int formula;
+};
+
+static int opt_formula(void *dst, const struct sd_optdef *d, const char *v, struct sd_err *e)
+{
+	(void)d;
+	if ((((struct test_opts *)dst)->formula = e1rm_find(v)) < 0)
+		return sd_usage(e, "unknown formula '%s' (see 'setdose e1rm --formula all')", v);
+	return 0;
+}
+
+static const struct sd_optdef add_opts[] = {
+	{ "date", OPT_STR, 0, 0, offsetof(struct test_opts, date), NULL, "DATE",
+	  "day of the test (default today; not after today)" },
+	{ "formula", OPT_CALL, 0, 0, 0, opt_formula, "NAME",
+	  "1RM equation (default brzycki; see 'setdose e1rm --formula all')" },
+};
+
 static int do_add(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	static const struct option longopts[] = {
-		{ "date", required_argument, NULL, 'd' },
-		{ "formula", required_argument, NULL, 'f' },
-		{ NULL, 0, NULL, 0 },
-	};
-	const char *date = NULL;
+	struct test_opts o = { NULL, E1RM_DEFAULT };
 	struct db_athlete a;
 	struct db_test t;
-	int c, f = E1RM_DEFAULT, warn = 0, field, lb;
+	int warn = 0, field, lb;
 
-	if (dbu_no_negatives(argc, argv, e))
+	if (dbu_no_negatives(argc, argv, e) ||
+	    (argc = opt_parse("test add", add_opts, OPT_N(add_opts), &o, argc, argv, e)) < 0)
 		return -1;
-	optind = 0;
-	opterr = 0;
-	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
-		if (c == 'd') {
-			date = optarg;
-		} else if (c == 'f') {
-			if ((f = e1rm_find(optarg)) < 0)
-				return sd_usage(e, "unknown formula '%s' (see 'setdose e1rm --formula all')",
-						optarg);
-		} else {
-			return dbu_badopt(&cmd_test, argc, argv, e);
-		}
-	}
-	if (argc - optind < 3 || argc - optind > 4)
+	if (argc < 4 || argc > 5)
 		return usage(e);
-	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[optind], &a, e))
+	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[1], &a, e))
 		return -1;
-	if (app_test_build(ctx, &a, argv[optind + 1], date, argv[optind + 2],
-			   argc - optind == 4 ? argv[optind + 3] : NULL, f, &t, &warn, &field, e)) {
+	if (app_test_build(ctx, &a, argv[2], o.date, argv[3], argc == 5 ? argv[4] : NULL, o.formula,
+			   &t, &warn, &field, e)) {
 		/* A bad number typed on the command line is a usage error, as the other options. */
 		if (field == APP_T_REPS || field == APP_T_DATE)
 			e->code = SD_EXIT_USAGE;
@@ -114,15 +117,15 @@ done:
 	return rc;
 }
 
-static const struct dbu_sub subs[] = {
-	{ "add", do_add },
-	{ "list", do_list },
-	{ NULL, NULL },
+static const struct sd_sub subs[] = {
+	{ "add", "test add", do_add, add_opts, OPT_N(add_opts) },
+	{ "list", "test list", do_list, NULL, 0 },
+	{ NULL, NULL, NULL, NULL, 0 },
 };
 
 static int exec_test(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	return dbu_subcommand(ctx, subs, &cmd_test, argc, argv, e);
+	return dbu_subcommand(ctx, &cmd_test, argc, argv, e);
 }
 
 const struct sd_cmd cmd_test = {
@@ -134,9 +137,8 @@ const struct sd_cmd cmd_test = {
 		 "  LOAD       in the athlete's units, or with a unit: 100kg, 225lb\n"
 		 "  REPS       reps to failure with LOAD (default 1: a tested 1RM); above 1 the 1RM\n"
 		 "             is estimated, with a warning above 10 reps; more than 20 is refused\n"
-		 "  --formula  1RM equation (default brzycki; see 'setdose e1rm --formula all')\n"
-		 "  --date     day of the test (default today; not after today)\n"
 		 "  The same test (athlete, lift, date, load, reps) is not recorded twice.",
 	.flags = CMD_DB | CMD_LIBRARY,
 	.exec = exec_test,
+	.subs = subs,
 };

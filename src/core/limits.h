@@ -25,7 +25,7 @@
 #define SD_NOTES_MAX 1024
 
 /* Record IDs typed by a user. */
-#define SD_ID_MAX 0x7fffffffffffffffLL
+#define SD_ID_MAX 1000000000000000LL   /* 1e15: exact as a double, far above any row id */
 
 /* A file or database path. */
 #define SD_PATH_MAX 1024

@@ -242,7 +242,7 @@ bad "^setdose: unknown exercise 'bench pres' in --candidates \(did you mean 'ben
 	--budget 9 --candidates "bench pres"
 bad "^setdose: --priority names chest twice$" --budget 9 --priority chest=1,chest=2
 bad "^setdose: unknown option '--frobnicate'" --budget 9 --frobnicate
-bad "^setdose: option '--min-sets' needs a value" --budget 9 --min-sets
+bad "^setdose: option '--min-sets' for 'allot' needs a value" --budget 9 --min-sets
 bad "^setdose: --min-sets 4 is above --max-sets 3$" --budget 9 --min-sets 4 --max-sets 3
 bad "^setdose: --max-exercises wants a whole number from 1 to 30, not '0'$" --budget 9 --max-exercises 0
 bad "^setdose: --fatigue-budget wants a number from 0.25 to 5000, not '0'$" --budget 9 --fatigue-budget 0

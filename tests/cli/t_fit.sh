@@ -20,7 +20,7 @@ has err "neither two-group columns"
 
 # --- effects: pre-post lnRR with correlation r (Lajeunesse 2011)
 cut -d, -f1-6 "$R/romc_prepost.csv" >pp.csv
-run 0 "$SD" effects pp.csv -o pp_out.csv
+run 0 "$SD" effects pp.csv --output pp_out.csv
 has out "wrote 5 pre-post lnRR effects to 'pp_out.csv'"
 check "effects: pre-post rows match metafor (ROMC)" python3 - pp_out.csv "$R/romc_prepost.csv" <<'PY'
 import csv, sys
@@ -36,7 +36,7 @@ has err "line 2: the pre-post correlation r is missing \(give --r-default R"
 run 0 "$SD" effects --r-default 0.7 pp_nor.csv
 has out "^100,120,15,16,12,0.18232155679.,0.00102314814815,0.7,default$" "default r used and marked in r_source"
 printf 'm_pre,m_post,sd_pre,sd_post,n,r\n100,120,15,16,12,0.5\n0,96,12,13,20,0.7\n60,70,9,10,1,0.9\n50,60,5,6,10,1.5\n' >bad.csv
-run 1 "$SD" effects bad.csv -o never.csv
+run 1 "$SD" effects bad.csv --output never.csv
 has err "3 of 4 rows rejected.*line 3: non-positive mean m_pre = 0.*line 4: sample size n = 1.*line 5: correlation r = 1.5"
 check "effects: nothing written on bad input" test ! -e never.csv
 run 2 "$SD" effects --design cross-over pp.csv

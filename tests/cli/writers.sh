@@ -17,7 +17,7 @@ write() {
 	case $kind in
 	png|svg|pdf) "$SD" chart $force --out "$path" --program "$P/demo-minimal2.ini" ;;
 	report) "$SD" report $force --out "$path" "$P/demo-minimal2.ini" ;;
-	effects) "$SD" effects $force -o "$path" pp.csv ;;
+	effects) "$SD" effects $force --output "$path" pp.csv ;;
 	fit) "$SD" fit $force --write "$path" "$R/sim_reciprocal_effects.csv" ;;
 	allot) "$SD" allot $force --budget 12 --write "$path" ;;
 	backup) "$SD" db backup $force "$path" ;;
