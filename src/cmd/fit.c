@@ -9,13 +9,12 @@
 #include <time.h>
 #include <unistd.h>
 
-#include <cjson/cJSON.h>
 
 #include "../io/profile_io.h"
 #include "../io/safefile.h"
 #include "../io/table.h"
+#include "../io/fit_out.h"
 #include "mrmodel.h"
-#include "../io/jsonout.h"
 
 extern const struct sd_cmd cmd_fit;
 
@@ -150,64 +149,6 @@ static void print_csv(FILE *out, const struct ef_model *mod, const struct mr_fit
 	tbl_free(t);
 }
 
-static cJSON *num(double x)
-{
-	return isfinite(x) ? cJSON_CreateNumber(x) : cJSON_CreateNull();
-}
-
-static void print_json(FILE *out, const char *path, const struct mrm *m,
-		       const struct ef_model *mod, const struct mr_fit *f)
-{
-	cJSON *root = cJSON_CreateObject(), *co = cJSON_CreateArray(), *vc = cJSON_CreateObject();
-	if (!root || !co || !vc)
-		goto done;
-	cJSON_AddStringToObject(root, "input", path);
-	cJSON_AddStringToObject(root, "method", f->method == MR_REML ? "REML" : "ML");
-	cJSON_AddStringToObject(root, "form", form_name(m->spec.form));
-	cJSON_AddItemToObject(root, "effects", num(f->n));
-	cJSON_AddItemToObject(root, "studies", num(f->nstudy));
-	for (int j = 0; j < f->p; j++) {
-		cJSON *o = cJSON_CreateObject();
-		cJSON_AddStringToObject(o, "term", mod->names[j]);
-		cJSON_AddItemToObject(o, "estimate", num(f->beta[j]));
-		cJSON_AddItemToObject(o, "se", num(f->se[j]));
-		cJSON_AddItemToObject(o, "stat", num(f->stat[j]));
-		cJSON_AddItemToObject(o, "p", num(f->pval[j]));
-		cJSON_AddItemToObject(o, "ci_low", num(f->lo[j]));
-		cJSON_AddItemToObject(o, "ci_high", num(f->hi[j]));
-		cJSON_AddItemToArray(co, o);
-	}
-	cJSON_AddItemToObject(root, "coefficients", co);
-	co = NULL;
-	cJSON_AddItemToObject(vc, "tau2", num(f->tau2));
-	if (f->slopes) {
-		cJSON_AddItemToObject(vc, "tau2_slope", num(f->tau2_slope));
-		cJSON_AddItemToObject(vc, "cov_slope", num(f->cov_slope));
-		cJSON_AddItemToObject(vc, "rho", num(f->rho));
-	}
-	if (f->effect_level)
-		cJSON_AddItemToObject(vc, "sigma2", num(f->sigma2));
-	cJSON_AddItemToObject(root, "variance", vc);
-	vc = NULL;
-	cJSON_AddItemToObject(root, "loglik", num(f->loglik));
-	cJSON_AddItemToObject(root, "aic", num(f->aic));
-	cJSON_AddItemToObject(root, "bic", num(f->bic));
-	cJSON_AddItemToObject(root, "df", num(f->df));
-	cJSON_AddItemToObject(root, "qe", num(f->qe));
-	cJSON_AddItemToObject(root, "qe_p", num(f->qe_p));
-	cJSON_AddItemToObject(root, "i2_study", num(f->i2_study));
-	cJSON_AddItemToObject(root, "i2_effect", num(f->i2_effect));
-	cJSON_AddBoolToObject(root, "converged", f->converged);
-	char *s = json_print(root, 1);
-	if (s)
-		fprintf(out, "%s\n", s);
-	free(s);
-done:
-	cJSON_Delete(root);
-	cJSON_Delete(co);
-	cJSON_Delete(vc);
-}
-
 static void print_fit(struct sd_ctx *ctx, const char *path, const struct mrm *m,
 		      const struct ef_model *mod, const struct mr_fit *f)
 {
@@ -219,7 +160,7 @@ static void print_fit(struct sd_ctx *ctx, const char *path, const struct mrm *m,
 		return;
 	}
 	if (ctx->opt.format == SD_FMT_JSON) {
-		print_json(out, path, m, mod, f);
+		fit_json(out, path, form_name(m->spec.form), mod, f);
 		return;
 	}
 	mrm_describe(m, desc, sizeof desc);
@@ -295,29 +236,12 @@ static void print_forms(struct sd_ctx *ctx, const char *path, const struct mrm *
 		order[r[i].rank[0] - 1] = i;   /* rows by AIC */
 	}
 	if (ctx->opt.format == SD_FMT_JSON) {
-		cJSON *arr = cJSON_CreateArray();
-		for (int k = 0; arr && k < n; k++) {
+		struct fit_form ff[SD_NFORMS];
+		for (int k = 0; k < n; k++) {
 			const struct form_row *x = &r[order[k]];
-			cJSON *o = cJSON_CreateObject();
-			cJSON_AddStringToObject(o, "form", form_name(x->form));
-			cJSON_AddItemToObject(o, "loglik", num(x->fit.loglik));
-			cJSON_AddItemToObject(o, "aic", num(x->fit.aic));
-			cJSON_AddItemToObject(o, "bic", num(x->fit.bic));
-			cJSON_AddItemToObject(o, "loso_rmse", num(x->cv.rmse));
-			cJSON_AddItemToObject(o, "loso_mlpd", num(x->cv.mlpd));
-			cJSON_AddItemToObject(o, "loso_folds", num(x->cv.folds));
-			cJSON_AddItemToObject(o, "loso_skipped", num(x->cv.skipped));
-			cJSON_AddItemToObject(o, "rank_aic", num(x->rank[0]));
-			cJSON_AddItemToObject(o, "rank_bic", num(x->rank[1]));
-			cJSON_AddItemToObject(o, "rank_rmse", num(x->rank[2]));
-			cJSON_AddItemToObject(o, "rank_mlpd", num(x->rank[3]));
-			cJSON_AddItemToArray(arr, o);
+			ff[k] = (struct fit_form){ form_name(x->form), &x->fit, &x->cv, x->rank };
 		}
-		char *s = json_print(arr, 1);
-		if (s)
-			fprintf(ctx->out, "%s\n", s);
-		free(s);
-		cJSON_Delete(arr);
+		fit_forms_json(ctx->out, ff, n);
 		tbl_free(t);
 		return;
 	}

@@ -6,11 +6,10 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include <cjson/cJSON.h>
 
 #include "../io/table.h"
+#include "../io/fit_out.h"
 #include "mrmodel.h"
-#include "../io/jsonout.h"
 
 extern const struct sd_cmd cmd_slopes;
 
@@ -155,52 +154,6 @@ static void picture(FILE *out, const struct ef_model *mod, const struct mr_fit *
 	free(ln);
 }
 
-static void print_json(FILE *out, const struct ef_model *mod, const struct mr_fit *f,
-		       const struct mr_study *st)
-{
-	cJSON *root = cJSON_CreateObject(), *arr = cJSON_CreateArray();
-	if (!root || !arr) {
-		cJSON_Delete(root);
-		cJSON_Delete(arr);
-		return;
-	}
-	cJSON_AddStringToObject(root, "form", form_name(mod->form));
-	cJSON_AddNumberToObject(root, "b_dose", f->beta[1]);
-	cJSON_AddNumberToObject(root, "se_dose", f->se[1]);
-	cJSON_AddNumberToObject(root, "tau2", f->tau2);
-	cJSON_AddNumberToObject(root, "tau2_slope", f->tau2_slope);
-	if (isfinite(f->rho))
-		cJSON_AddNumberToObject(root, "rho", f->rho);
-	else
-		cJSON_AddNullToObject(root, "rho");
-	for (int s = 0; s < f->nstudy; s++) {
-		cJSON *o = cJSON_CreateObject();
-		cJSON_AddStringToObject(o, "study", mod->study_name[st[s].id]);
-		cJSON_AddNumberToObject(o, "effects", st[s].k);
-		cJSON_AddNumberToObject(o, "doses", st[s].ndose);
-		cJSON_AddNumberToObject(o, "weight_pct", st[s].weight);
-		if (st[s].raw_ok) {
-			cJSON_AddNumberToObject(o, "raw_slope", st[s].raw_b);
-			cJSON_AddNumberToObject(o, "raw_se", st[s].raw_se_b);
-		} else {
-			cJSON_AddNullToObject(o, "raw_slope");
-			cJSON_AddNullToObject(o, "raw_se");
-		}
-		cJSON_AddNumberToObject(o, "shrunk_slope", f->beta[1] + st[s].u1);
-		cJSON_AddNumberToObject(o, "blup_slope", st[s].u1);
-		cJSON_AddNumberToObject(o, "blup_slope_se", st[s].se_u1);
-		cJSON_AddNumberToObject(o, "blup_intercept", st[s].u0);
-		cJSON_AddNumberToObject(o, "blup_intercept_se", st[s].se_u0);
-		cJSON_AddItemToArray(arr, o);
-	}
-	cJSON_AddItemToObject(root, "studies", arr);
-	char *s = json_print(root, 1);
-	if (s)
-		fprintf(out, "%s\n", s);
-	free(s);
-	cJSON_Delete(root);
-}
-
 static void print_table(struct sd_ctx *ctx, const struct ef_model *mod, const struct mr_fit *f,
 			const struct mr_study *st)
 {
@@ -278,7 +231,7 @@ static int exec_slopes(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 	if (mr_studies(&mod.d, &f, st, e))
 		goto done;
 	if (ctx->opt.format == SD_FMT_JSON) {
-		print_json(ctx->out, &mod, &f, st);
+		slopes_json(ctx->out, &mod, &f, st);
 	} else if (ctx->opt.format == SD_FMT_CSV) {
 		print_table(ctx, &mod, &f, st);
 	} else {

@@ -1,6 +1,8 @@
 #include "jsonout.h"
 
 #include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -10,6 +12,19 @@ void json_num(cJSON *o, const char *key, double v, int digits)
 {
 	double s = pow(10, digits);
 	cJSON_AddNumberToObject(o, key, round(v * s) / s);
+}
+
+void json_sig(cJSON *o, const char *key, double v)
+{
+	char buf[32];
+
+	if (!isfinite(v)) {
+		cJSON_AddNullToObject(o, key);
+		return;
+	}
+	/* Ten significant digits survive a print and a read back exactly as printed. */
+	snprintf(buf, sizeof buf, "%.10g", v);
+	cJSON_AddNumberToObject(o, key, strtod(buf, NULL));
 }
 
 static cJSON *profile_obj(const struct sd_profile *p)

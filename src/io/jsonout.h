@@ -9,6 +9,9 @@
 /* Adds a number rounded to `digits` decimals, so output is stable across platforms'
  * last-digit noise. */
 void json_num(cJSON *o, const char *key, double v, int digits);
+/* Adds a number to 10 significant digits (statistics whose scale varies: estimates, variances,
+ * p-values), or null when it is not finite. */
+void json_sig(cJSON *o, const char *key, double v);
 /* Adds "profile": {"name", "basis", "summary"}: what the numbers come from. */
 void json_profile(cJSON *o, const struct sd_profile *p);
 /* The same object as text (malloc'd), for writers that assemble JSON from pieces. */
