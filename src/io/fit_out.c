@@ -19,18 +19,22 @@ static void emit(FILE *out, cJSON *root)
 void fit_json(FILE *out, const char *path, const char *form, const struct ef_model *mod,
 	      const struct mr_fit *f)
 {
-	cJSON *root = cJSON_CreateObject(), *co = cJSON_AddArrayToObject(root, "coefficients");
-	cJSON *vc = cJSON_AddObjectToObject(root, "variance");
+	cJSON *root = cJSON_CreateObject(), *co, *vc;
 
-	if (!root || !co || !vc) {
-		cJSON_Delete(root);
+	if (!root)
 		return;
-	}
 	cJSON_AddStringToObject(root, "input", path);
 	cJSON_AddStringToObject(root, "method", f->method == MR_REML ? "REML" : "ML");
 	cJSON_AddStringToObject(root, "form", form);
 	json_sig(root, "effects", f->n);
 	json_sig(root, "studies", f->nstudy);
+	co = cJSON_AddArrayToObject(root, "coefficients");
+	vc = cJSON_CreateObject();
+	if (!co || !vc) {
+		cJSON_Delete(vc);
+		cJSON_Delete(root);
+		return;
+	}
 	for (int j = 0; j < f->p; j++) {
 		cJSON *o = cJSON_CreateObject();
 		if (!o)
@@ -52,6 +56,7 @@ void fit_json(FILE *out, const char *path, const char *form, const struct ef_mod
 	}
 	if (f->effect_level)
 		json_sig(vc, "sigma2", f->sigma2);
+	cJSON_AddItemToObject(root, "variance", vc);
 	json_sig(root, "loglik", f->loglik);
 	json_sig(root, "aic", f->aic);
 	json_sig(root, "bic", f->bic);
