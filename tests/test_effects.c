@@ -98,21 +98,10 @@ static void test_impossible(void **state)
 	assert_non_null(strstr(e.msg, "sampling variance"));
 }
 
-static char *write_tmp(const char *text)
-{
-	static char path[64];
-	strcpy(path, "/tmp/sd_effects_XXXXXX");
-	int fd = mkstemp(path);
-	assert_true(fd >= 0);
-	assert_int_equal(write(fd, text, strlen(text)), (ssize_t)strlen(text));
-	close(fd);
-	return path;
-}
-
 static int build(const char *text, struct ef_spec *s, struct ef_model *m, struct sd_err *e)
 {
 	struct ef_table t;
-	char *p = write_tmp(text);
+	char *p = tu_write_temp(text);
 	int rc = eft_read(p, &t, e);
 	if (!rc) {
 		rc = ef_model_build(&t, s, m, e);
@@ -162,7 +151,7 @@ static void test_model_labels(void **state)
 	struct ef_table t;
 	struct ef_model m;
 	struct sd_err e = { 0 };
-	char *p = write_tmp("study,arm,sets,yi,vi,trained\nzeta,1,0,0.1,0.01,1\nalpha,1,3,0.2,0.02,0\n"
+	char *p = tu_write_temp("study,arm,sets,yi,vi,trained\nzeta,1,0,0.1,0.01,1\nalpha,1,3,0.2,0.02,0\n"
 			    "zeta,2,9,0.3,0.01,1\nalpha,\"2\",1,0.1,0.01,0\n");
 	(void)state;
 	assert_int_equal(eft_read(p, &t, &e), 0);

@@ -9,17 +9,6 @@
 
 #include "io/profile_io.h"
 
-static char *write_temp(const char *text)
-{
-	static char path[64];
-	snprintf(path, sizeof path, "/tmp/sdprofXXXXXX");
-	int fd = mkstemp(path);
-	assert_true(fd >= 0);
-	assert_int_equal(write(fd, text, strlen(text)), (ssize_t)strlen(text));
-	close(fd);
-	return path;
-}
-
 /* The calibration values (from memory, as the profile says): SEs 0.012, 0.020 (corr -0.6),
  * 0.002, 0.012; tau2 0.0025, sigma2 0.001; between-athlete variance 0.0064; ranges 0-30 sets,
  * 4-24 weeks; SWC ln 1.03. */
@@ -115,7 +104,7 @@ static void expect_bad(const char *from, const char *to, const char *needle)
 	const char *at = strstr(base, from);
 	assert_non_null(at);
 	snprintf(text, sizeof text, "%.*s%s%s", (int)(at - base), base, to, at + strlen(from));
-	char *path = write_temp(text);
+	char *path = tu_write_temp(text);
 	int rc = profile_load(path, &p, &e);
 	unlink(path);
 	if (rc == 0)
@@ -129,7 +118,7 @@ static void test_bad(void **state)
 	struct sd_profile p;
 	struct sd_err e;
 	(void)state;
-	char *path = write_temp(base);
+	char *path = tu_write_temp(base);
 	if (profile_load(path, &p, &e))
 		fail_msg("%s", e.msg);
 	unlink(path);

@@ -9,6 +9,9 @@
 #include <cmocka.h>
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <unistd.h>
 
 #include "io/library_io.h"
 
@@ -29,6 +32,21 @@ static inline int tu_bundled_library(struct sd_library *lib)
 		return -1;
 	}
 	return 0;
+}
+
+/* Writes text to a new temporary file and returns its path (static storage: one at a time;
+ * the caller unlinks it). */
+static inline char *tu_write_temp(const char *text)
+{
+	static char path[64];
+	int fd;
+
+	snprintf(path, sizeof path, "/tmp/sd_test_XXXXXX");
+	fd = mkstemp(path);
+	assert_true(fd >= 0);
+	assert_int_equal(write(fd, text, strlen(text)), (ssize_t)strlen(text));
+	close(fd);
+	return path;
 }
 
 #endif

@@ -11,6 +11,7 @@
 #include <strings.h>
 
 #include "../core/allot.h"
+#include "../core/text.h"
 #include "../core/audit.h"
 #include "../io/allot_out.h"
 #include "../io/program_write.h"
@@ -50,16 +51,6 @@ struct allot_args {
 	int others_set;
 };
 
-static char *trim(char *s)
-{
-	while (*s == ' ' || *s == '\t')
-		s++;
-	char *end = s + strlen(s);
-	while (end > s && (end[-1] == ' ' || end[-1] == '\t'))
-		*--end = '\0';
-	return s;
-}
-
 static int unknown_muscle(const char *opt, const char *name, struct sd_err *e)
 {
 	char list[256] = "";
@@ -83,13 +74,13 @@ static int parse_list(const char *opt, const char *arg, double hi, double *val, 
 		double x;
 		int m;
 		if (!eq)
-			return sd_usage(e, "--%s wants muscle=NUMBER pairs, not '%s'", opt, trim(tok));
+			return sd_usage(e, "--%s wants muscle=NUMBER pairs, not '%s'", opt, text_trim(tok));
 		*eq = '\0';
-		name = trim(tok);
-		x = strtod(trim(eq + 1), &end);
-		if (end == trim(eq + 1) || *end || !(x >= 0 && x <= hi))
+		name = text_trim(tok);
+		x = strtod(text_trim(eq + 1), &end);
+		if (end == text_trim(eq + 1) || *end || !(x >= 0 && x <= hi))
 			return sd_usage(e, "--%s %s wants a number from 0 to %g, not '%s'", opt, name, hi,
-					trim(eq + 1));
+					text_trim(eq + 1));
 		if (others && !strcasecmp(name, "others")) {
 			if (*others_set)
 				return sd_usage(e, "--%s names 'others' twice", opt);
@@ -380,7 +371,7 @@ static int parse_candidates(const struct sd_library *lib, const char *arg, int *
 		return sd_fail(e, "out of memory");
 	for (char *save, *tok = strtok_r(buf, ",", &save); tok && !rc;
 	     tok = strtok_r(NULL, ",", &save)) {
-		char *name = trim(tok);
+		char *name = text_trim(tok);
 		int idx = lib_find(lib, name), hint[1];
 		if (!*name)
 			continue;

@@ -91,3 +91,15 @@ char *text_repair(const char *s)
 	out[o] = '\0';
 	return out;
 }
+
+char *text_trim(char *s)
+{
+	char *end;
+
+	while (*s == ' ' || *s == '\t')
+		s++;
+	end = s + strlen(s);
+	while (end > s && (end[-1] == ' ' || end[-1] == '\t' || end[-1] == '\r'))
+		*--end = '\0';
+	return s;
+}

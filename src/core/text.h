@@ -20,4 +20,8 @@ size_t text_utf8_len(const unsigned char *s, size_t n);
  * sequence replaced by U+FFFD, so the result is always valid UTF-8; NULL when out of memory. */
 char *text_repair(const char *s);
 
+/* Cuts spaces, tabs and carriage returns from both ends of s in place; returns the first
+ * character kept. */
+char *text_trim(char *s);
+
 #endif

@@ -303,16 +303,7 @@ static cJSON *muscles_json(const struct allot_view *v)
 		json_num(o, "priority", v->prob->weight[m], 6);
 		json_num(o, "min", v->res->min[m], 4);
 		json_num(o, "max", v->prob->max[m], 4);
-		json_num(o, "fractional", r->dose.fractional, 2);
-		json_num(o, "max_per_session", r->dose.max_session, 2);
-		cJSON_AddNumberToObject(o, "sessions", r->dose.sessions);
-		json_num(o, "lnrr", r->pt.y, 6);
-		json_num(o, "gain_pct", pct(r->pt.y), 3);
-		json_bands(o, &r->pt, 3);
-		json_num(o, "plus1_pct", r->plus1.pct, 4);
-		json_num(o, "plus1_low", r->plus1.lo, 4);
-		json_num(o, "plus1_high", r->plus1.hi, 4);
-		cJSON_AddStringToObject(o, "zone", zone_name(r->zone));
+		json_audit_row(o, r);
 		cJSON_AddItemToArray(arr, o);
 	}
 	return arr;
@@ -340,8 +331,6 @@ static cJSON *warnings_json(const struct allot_view *v)
 static int print_json(FILE *f, const struct allot_view *v)
 {
 	cJSON *o = cJSON_CreateObject(), *notes;
-	char *text = NULL;
-	int rc = -1;
 
 	if (!o)
 		return -1;
@@ -354,14 +343,7 @@ static int print_json(FILE *f, const struct allot_view *v)
 		cJSON_AddItemToArray(notes, cJSON_CreateString(v->notes[i]));
 	cJSON_AddItemToObject(o, "warnings", warnings_json(v));
 	cJSON_AddStringToObject(o, "caution", aout_caution);
-	if (!(text = json_print(o, 1)))
-		goto done;
-	fprintf(f, "%s\n", text);
-	rc = 0;
-done:
-	free(text);
-	cJSON_Delete(o);
-	return rc;
+	return json_emit(f, o);
 }
 
 int allot_out_print(FILE *f, const struct allot_view *v, enum allot_fmt fmt, int color)

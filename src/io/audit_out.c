@@ -228,18 +228,9 @@ static cJSON *muscle_json(const struct sd_audit *a, int m)
 	cJSON_AddStringToObject(o, "muscle", muscle_name(m));
 	json_num(o, "direct", r->dose.direct, 2);
 	json_num(o, "indirect", r->dose.indirect, 2);
-	json_num(o, "fractional", r->dose.fractional, 2);
-	json_num(o, "max_per_session", r->dose.max_session, 2);
-	cJSON_AddNumberToObject(o, "sessions", r->dose.sessions);
 	json_num(o, "not_counted", r->dose.easy, 2);
-	json_num(o, "lnrr", r->pt.y, 6);
+	json_audit_row(o, r);
 	json_num(o, "se", r->pt.se, 6);
-	json_num(o, "gain_pct", pct(r->pt.y), 3);
-	json_bands(o, &r->pt, 3);
-	json_num(o, "plus1_pct", r->plus1.pct, 4);
-	json_num(o, "plus1_low", r->plus1.lo, 4);
-	json_num(o, "plus1_high", r->plus1.hi, 4);
-	cJSON_AddStringToObject(o, "zone", zone_name(r->zone));
 	return o;
 }
 

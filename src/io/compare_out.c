@@ -174,31 +174,37 @@ void cmp_out_table(FILE *f, const struct cmp_view *v, int color)
 					color ? "\033[0m" : "", key(i), v->audit[i].warn[w].text);
 }
 
+/* One table (one header) for everything: each row says what it is in `row` ("muscle": one
+ * program's muscle; "difference": a pair's difference for one muscle, program first and second;
+ * "totals": one program's totals) and leaves the columns of the other kinds empty. */
 int cmp_out_csv(FILE *f, const struct cmp_view *v)
 {
-	fprintf(f, "program,source,muscle,fractional,gain_pct,curve_low,curve_high,zone\n");
+	fprintf(f, "row,program,second,source,muscle,fractional,fractional_second,gain_pct,"
+		"curve_low,curve_high,zone,delta_pct,ci_low,ci_high,dec_low,dec_high,decision,"
+		"hard_sets,sessions,sets_per_session,under_plateau,past_plateau,beyond_evidence,"
+		"over_session_cap\n");
 	for (int i = 0; i < v->n; i++)
 		for (int m = 0; m < SD_NMUSCLES; m++) {
 			const struct sd_audit_row *r = &v->audit[i].row[m];
-			fprintf(f, "%c,", key(i));
+			fprintf(f, "muscle,%c,,", key(i));
 			tbl_csv_field(f, v->label[i]);
-			fprintf(f, ",%s,%.2f,%.3f,%.3f,%.3f,%s\n", muscle_name(m), r->dose.fractional,
-				pct(r->pt.y), pct(r->pt.ci_lo), pct(r->pt.ci_hi), zone_name(r->zone));
+			fprintf(f, ",%s,%.2f,,%.3f,%.3f,%.3f,%s,,,,,,,,,,,,,\n", muscle_name(m),
+				r->dose.fractional, pct(r->pt.y), pct(r->pt.ci_lo), pct(r->pt.ci_hi),
+				zone_name(r->zone));
 		}
-	fprintf(f, "\nfirst,second,muscle,sets_first,sets_second,delta_pct,ci_low,ci_high,"
-		"dec_low,dec_high,decision\n");
 	for (int k = 0; k < v->npairs; k++)
 		for (int m = 0; m < SD_NMUSCLES; m++) {
 			const struct cmp_diff *d = diff_of(v, k, m);
-			fprintf(f, "%c,%c,%s,%.2f,%.2f,%.4f,%.4f,%.4f,%.4f,%.4f,%s\n", key(v->pair[k][0]),
-				key(v->pair[k][1]), muscle_name(m), d->xa, d->xb, pct(d->d), pct(d->lo),
-				pct(d->hi), pct(d->dlo), pct(d->dhi), cmp_decision_name(d->decision));
+			fprintf(f, "difference,%c,%c,,%s,%.2f,%.2f,,,,,%.4f,%.4f,%.4f,%.4f,%.4f,%s,,,,,,,\n",
+				key(v->pair[k][0]), key(v->pair[k][1]), muscle_name(m), d->xa, d->xb,
+				pct(d->d), pct(d->lo), pct(d->hi), pct(d->dlo), pct(d->dhi),
+				cmp_decision_name(d->decision));
 		}
-	fprintf(f, "\nprogram,hard_sets,sessions,sets_per_session,under_plateau,past_plateau,"
-		"beyond_evidence,over_session_cap\n");
 	for (int i = 0; i < v->n; i++) {
 		const struct cmp_totals *c = &v->tot[i];
-		fprintf(f, "%c,%d,%d,%.2f,%d,%d,%d,%d\n", key(i), c->hard_sets, c->sessions,
+		fprintf(f, "totals,%c,,", key(i));
+		tbl_csv_field(f, v->label[i]);
+		fprintf(f, ",,,,,,,,,,,,,,%d,%d,%.2f,%d,%d,%d,%d\n", c->hard_sets, c->sessions,
 			c->sets_per_session, c->under_plateau, c->past_plateau, c->beyond_evidence,
 			c->over_cap);
 	}
@@ -289,8 +295,6 @@ static cJSON *pair_json(const struct cmp_view *v, int k)
 int cmp_out_json(FILE *f, const struct cmp_view *v)
 {
 	cJSON *o = cJSON_CreateObject(), *ps, *cs;
-	char *text = NULL;
-	int rc = -1;
 
 	if (!o)
 		return -1;
@@ -313,12 +317,5 @@ int cmp_out_json(FILE *f, const struct cmp_view *v)
 	if (v->note)
 		cJSON_AddStringToObject(o, "note", v->note);
 	cJSON_AddStringToObject(o, "caution", aout_caution);
-	if (!(text = json_print(o, 1)))
-		goto done;
-	fprintf(f, "%s\n", text);
-	rc = 0;
-done:
-	free(text);
-	cJSON_Delete(o);
-	return rc;
+	return json_emit(f, o);
 }

@@ -7,15 +7,6 @@
 
 #include "jsonout.h"
 
-static void emit(FILE *out, cJSON *root)
-{
-	char *s = root ? json_print(root, 1) : NULL;
-	if (s)
-		fprintf(out, "%s\n", s);
-	free(s);
-	cJSON_Delete(root);
-}
-
 void fit_json(FILE *out, const char *path, const char *form, const struct ef_model *mod,
 	      const struct mr_fit *f)
 {
@@ -66,7 +57,7 @@ void fit_json(FILE *out, const char *path, const char *form, const struct ef_mod
 	json_sig(root, "i2_study", f->i2_study);
 	json_sig(root, "i2_effect", f->i2_effect);
 	cJSON_AddBoolToObject(root, "converged", f->converged);
-	emit(out, root);
+	json_emit(out, root);
 }
 
 void fit_forms_json(FILE *out, const struct fit_form *r, int n)
@@ -91,7 +82,7 @@ void fit_forms_json(FILE *out, const struct fit_form *r, int n)
 		json_sig(o, "rank_mlpd", r[k].rank[3]);
 		cJSON_AddItemToArray(arr, o);
 	}
-	emit(out, arr);
+	json_emit(out, arr);
 }
 
 void slopes_json(FILE *out, const struct ef_model *mod, const struct mr_fit *f,
@@ -129,5 +120,5 @@ void slopes_json(FILE *out, const struct ef_model *mod, const struct mr_fit *f,
 		cJSON_AddItemToArray(arr, o);
 	}
 	cJSON_AddItemToObject(root, "studies", arr);
-	emit(out, root);
+	json_emit(out, root);
 }

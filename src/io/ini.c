@@ -1,4 +1,5 @@
 #include "ini.h"
+#include "../core/text.h"
 
 #include <errno.h>
 #include <stdarg.h>
@@ -9,20 +10,10 @@
 #include <stdlib.h>
 #include <string.h>
 
-static char *trim(char *s)
-{
-	while (*s == ' ' || *s == '\t')
-		s++;
-	char *end = s + strlen(s);
-	while (end > s && (end[-1] == ' ' || end[-1] == '\t' || end[-1] == '\r'))
-		*--end = '\0';
-	return s;
-}
-
 /* A value may be quoted to keep ';' or '#' in it; otherwise they start a comment. */
 static char *value_of(char *v, int *bad)
 {
-	v = trim(v);
+	v = text_trim(v);
 	*bad = 0;
 	if (*v == '"') {
 		char *close = strchr(v + 1, '"');
@@ -31,7 +22,7 @@ static char *value_of(char *v, int *bad)
 			return v;
 		}
 		*close = '\0';
-		char *rest = trim(close + 1);
+		char *rest = text_trim(close + 1);
 		if (*rest && *rest != ';' && *rest != '#')
 			*bad = 1;
 		return v + 1;
@@ -39,7 +30,7 @@ static char *value_of(char *v, int *bad)
 	char *comment = strpbrk(v, ";#");
 	if (comment)
 		*comment = '\0';
-	return trim(v);
+	return text_trim(v);
 }
 
 /* Reports a malformed line: through the callback (ini_scan_all) or as the error (ini_scan). */
@@ -76,12 +67,12 @@ static int scan(const char *what, const char *label, char *text, int all, sd_ini
 		if (next)
 			*next++ = '\0';
 		it.line++;
-		char *s = trim(raw);
+		char *s = text_trim(raw);
 		if (!*s || *s == ';' || *s == '#')
 			continue;
 		if (*s == '[') {
 			char *end = strchr(s, ']');
-			char *rest = end ? trim(end + 1) : NULL;
+			char *rest = end ? text_trim(end + 1) : NULL;
 			if (!end || (*rest && *rest != ';' && *rest != '#')) {
 				skip = 1;
 				if ((rc = malformed(&it, what, label, all, fn, arg, e,
@@ -90,7 +81,7 @@ static int scan(const char *what, const char *label, char *text, int all, sd_ini
 				continue;
 			}
 			*end = '\0';
-			char *name = trim(s + 1);
+			char *name = text_trim(s + 1);
 			if (!*name) {
 				skip = 1;
 				if ((rc = malformed(&it, what, label, all, fn, arg, e, "empty section name")))
@@ -116,7 +107,7 @@ static int scan(const char *what, const char *label, char *text, int all, sd_ini
 		}
 		*eq = '\0';
 		int bad;
-		it.key = trim(s);
+		it.key = text_trim(s);
 		it.value = value_of(eq + 1, &bad);
 		if (bad) {
 			if ((rc = malformed(&it, what, label, all, fn, arg, e,

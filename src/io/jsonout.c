@@ -1,5 +1,7 @@
 #include "jsonout.h"
 
+#include "../core/audit.h"
+
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -106,4 +108,29 @@ char *json_print(const cJSON *o, int formatted)
 	out = text_repair(raw);
 	cJSON_free(raw);
 	return out;
+}
+
+void json_audit_row(cJSON *o, const struct sd_audit_row *r)
+{
+	json_num(o, "fractional", r->dose.fractional, 2);
+	json_num(o, "max_per_session", r->dose.max_session, 2);
+	cJSON_AddNumberToObject(o, "sessions", r->dose.sessions);
+	json_num(o, "lnrr", r->pt.y, 6);
+	json_num(o, "gain_pct", curve_pct(r->pt.y), 3);
+	json_bands(o, &r->pt, 3);
+	json_num(o, "plus1_pct", r->plus1.pct, 4);
+	json_num(o, "plus1_low", r->plus1.lo, 4);
+	json_num(o, "plus1_high", r->plus1.hi, 4);
+	cJSON_AddStringToObject(o, "zone", zone_name(r->zone));
+}
+
+int json_emit(FILE *f, cJSON *o)
+{
+	char *text = o ? json_print(o, 1) : NULL;
+
+	if (text)
+		fprintf(f, "%s\n", text);
+	free(text);
+	cJSON_Delete(o);
+	return text ? 0 : -1;
 }

@@ -2,6 +2,8 @@
 #ifndef SD_JSONOUT_H
 #define SD_JSONOUT_H
 
+#include <stdio.h>
+
 #include <cjson/cJSON.h>
 
 #include "../core/curve.h"
@@ -25,6 +27,13 @@ void json_bands(cJSON *o, const struct sd_point *pt, int digits);
 void json_evidence(cJSON *o, const struct sd_profile *p, const struct sd_covars *c);
 /* Adds "beyond_evidence": ["dose", "weeks", ...] for SD_BEYOND_* bits. */
 void json_beyond(cJSON *o, unsigned bits);
+
+/* Adds a muscle's audit row: fractional, max_per_session, sessions, lnrr, gain_pct, the three
+ * bands, plus1_pct/low/high and zone, rounded as every writer rounds them. */
+struct sd_audit_row;
+void json_audit_row(cJSON *o, const struct sd_audit_row *r);
+/* Prints o formatted with a newline and deletes it; 0, or -1 when out of memory. */
+int json_emit(FILE *f, cJSON *o);
 
 /* The text of o, formatted or on one line, with every byte that is not valid UTF-8 replaced
  * by U+FFFD: cJSON copies string bytes as given, and a name from a file or the command line

@@ -1,4 +1,5 @@
 #include "program_io.h"
+#include "../core/text.h"
 
 #include <errno.h>
 #include <stdarg.h>
@@ -63,16 +64,6 @@ static int oom(struct reader *r)
 {
 	r->fatal = 1;
 	return sd_fail(r->e, "out of memory");
-}
-
-static char *trim(char *s)
-{
-	while (*s == ' ' || *s == '\t')
-		s++;
-	char *end = s + strlen(s);
-	while (end > s && (end[-1] == ' ' || end[-1] == '\t' || end[-1] == '\r'))
-		*--end = '\0';
-	return s;
 }
 
 /* "unknown exercise 'x' (did you mean 'a', 'b' or 'c'?)" */
@@ -317,7 +308,7 @@ static void sort_notes(struct sd_program *p)
 static int column(char **f, int n, const char *name)
 {
 	for (int i = 0; i < n; i++)
-		if (!strcasecmp(trim(f[i]), name))
+		if (!strcasecmp(text_trim(f[i]), name))
 			return i;
 	return -1;
 }
@@ -360,7 +351,7 @@ static size_t csv_meta(struct reader *r, const char *text, size_t len, int *firs
 				}
 				memcpy(key, k, kn);
 				key[kn] = '\0';
-				program_key(r, line, key, trim(val));
+				program_key(r, line, key, text_trim(val));
 				free(val);
 			}
 		}
@@ -400,7 +391,7 @@ static int csv_header(struct reader *r, char **f, int n, int line, struct cols *
 
 static const char *field(char **f, int n, int col)
 {
-	return col >= 0 && col < n ? trim(f[col]) : "";
+	return col >= 0 && col < n ? text_trim(f[col]) : "";
 }
 
 static void csv_row(struct reader *r, char **f, int n, int line, const struct cols *c)
@@ -465,7 +456,7 @@ static void csv_row(struct reader *r, char **f, int n, int line, const struct co
 static int blank_row(char **f, int n)
 {
 	for (int i = 0; i < n; i++)
-		if (*trim(f[i]))
+		if (*text_trim(f[i]))
 			return 0;
 	return 1;
 }

@@ -22,6 +22,13 @@ static void row_athlete(sqlite3_stmt *st, struct db_athlete *a)
 	a->units_lb = !strcmp(units, "lb");
 }
 
+static int collect_athlete(sqlite3_stmt *st, void *rec, struct sd_err *e)
+{
+	(void)e;
+	row_athlete(st, rec);
+	return 0;
+}
+
 static int bind_athlete(sqlite3_stmt *st, const struct db_athlete *a)
 {
 	sqlite3_bind_text(st, 1, a->name, -1, SQLITE_TRANSIENT);
@@ -65,7 +72,6 @@ done:
 int db_athlete_add(struct sd_db *db, const struct db_athlete *a, long long *id, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	int ret = -1;
 
 	if (check_texts(a, e) || name_taken(db, a->name, -1, e))
 		return -1;
@@ -73,36 +79,24 @@ int db_athlete_add(struct sd_db *db, const struct db_athlete *a, long long *id, 
 			    "VALUES (?1, ?2, ?3, ?4)", &st, e))
 		goto done;
 	bind_athlete(st, a);
-	if (dbi_exec_step(db, st, "add the athlete", e))
-		goto done;
-	if (id)
-		*id = sqlite3_last_insert_rowid(db->h);
-	ret = 0;
+	return dbi_insert(db, st, "add the athlete", id, e);
 done:
-	sqlite3_finalize(st);
-	return ret;
+	sqlite3_finalize(st);   /* NULL, or a statement that failed before the insert */
+	return -1;
 }
 
 int db_athlete_get(struct sd_db *db, const char *name, struct db_athlete *out, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	int ret = -1, rc;
+	int rc;
 
 	if (dbi_prepare(db, "SELECT " ATHLETE_COLS " FROM athletes WHERE name = ?1", &st, e))
-		goto done;
+		return -1;
 	sqlite3_bind_text(st, 1, name, -1, SQLITE_TRANSIENT);
-	rc = dbi_step_row(db, st, "read athletes", e);
-	if (rc == 0) {
+	rc = dbi_one(db, st, "read athletes", collect_athlete, out, e);
+	if (rc == 0)
 		sd_fail(e, "unknown athlete '%s' (see 'setdose athlete list')", name);
-		goto done;
-	}
-	if (rc < 0)
-		goto done;
-	row_athlete(st, out);
-	ret = 0;
-done:
-	sqlite3_finalize(st);
-	return ret;
+	return rc > 0 ? 0 : -1;
 }
 
 int db_athlete_update(struct sd_db *db, const struct db_athlete *a, struct sd_err *e)
@@ -123,13 +117,6 @@ int db_athlete_update(struct sd_db *db, const struct db_athlete *a, struct sd_er
 done:
 	sqlite3_finalize(st);
 	return ret;
-}
-
-static int collect_athlete(sqlite3_stmt *st, void *rec, struct sd_err *e)
-{
-	(void)e;
-	row_athlete(st, rec);
-	return 0;
 }
 
 int db_athlete_list(struct sd_db *db, struct db_athlete **out, int *n, struct sd_err *e)

@@ -21,11 +21,17 @@ static void row_block(sqlite3_stmt *st, struct db_block *b)
 	b->trained = !strcmp((const char *)sqlite3_column_text(st, 8), "trained");
 }
 
+static int collect_block(sqlite3_stmt *st, void *rec, struct sd_err *e)
+{
+	(void)e;
+	row_block(st, rec);
+	return 0;
+}
+
 int db_block_add(struct sd_db *db, long long athlete_id, long long program_id, const char *start,
 		 int weeks, long long *id, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	int ret = -1;
 
 	if (dbi_prepare(db, "INSERT INTO blocks (athlete_id, program_id, start_date, weeks) "
 			    "VALUES (?1, ?2, ?3, ?4)", &st, e))
@@ -34,36 +40,24 @@ int db_block_add(struct sd_db *db, long long athlete_id, long long program_id, c
 	sqlite3_bind_int64(st, 2, program_id);
 	sqlite3_bind_text(st, 3, start, -1, SQLITE_TRANSIENT);
 	sqlite3_bind_int(st, 4, weeks);
-	if (dbi_exec_step(db, st, "add the block", e))
-		goto done;
-	if (id)
-		*id = sqlite3_last_insert_rowid(db->h);
-	ret = 0;
+	return dbi_insert(db, st, "add the block", id, e);
 done:
-	sqlite3_finalize(st);
-	return ret;
+	sqlite3_finalize(st);   /* NULL, or a statement that failed before the insert */
+	return -1;
 }
 
 int db_block_get(struct sd_db *db, long long id, struct db_block *out, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	int ret = -1, rc;
+	int rc;
 
 	if (dbi_prepare(db, BLOCK_SELECT "WHERE b.id = ?1", &st, e))
-		goto done;
+		return -1;
 	sqlite3_bind_int64(st, 1, id);
-	rc = dbi_step_row(db, st, "read blocks", e);
-	if (rc == 0) {
+	rc = dbi_one(db, st, "read blocks", collect_block, out, e);
+	if (rc == 0)
 		sd_fail(e, "unknown block %lld (see 'setdose block list')", id);
-		goto done;
-	}
-	if (rc < 0)
-		goto done;
-	row_block(st, out);
-	ret = 0;
-done:
-	sqlite3_finalize(st);
-	return ret;
+	return rc > 0 ? 0 : -1;
 }
 
 int db_block_end(struct sd_db *db, long long id, const char *end, struct sd_err *e)
@@ -87,13 +81,6 @@ int db_block_end(struct sd_db *db, long long id, const char *end, struct sd_err 
 done:
 	sqlite3_finalize(st);
 	return ret;
-}
-
-static int collect_block(sqlite3_stmt *st, void *rec, struct sd_err *e)
-{
-	(void)e;
-	row_block(st, rec);
-	return 0;
 }
 
 int db_block_list(struct sd_db *db, long long athlete_id, struct db_block **out, int *n,

@@ -30,6 +30,14 @@ int dbi_step_row(struct sd_db *db, sqlite3_stmt *st, const char *what, struct sd
 typedef int (*dbi_row_fn)(sqlite3_stmt *st, void *rec, struct sd_err *e);
 /* Steps st to the end, filling a malloc'd array of records of `size` bytes with fn; on success
  * *out (free it) and *n are set. `what` names the read in an error ("read athletes"). */
+/* Steps an INSERT prepared and bound by the caller, stores the new row's id in *id (may be
+ * NULL) and finalizes st, also on failure. */
+int dbi_insert(struct sd_db *db, sqlite3_stmt *st, const char *what, long long *id,
+	       struct sd_err *e);
+/* Reads at most one row of a bound SELECT into rec with fn and finalizes st: 1 read, 0 no row
+ * (the caller names what was not found), -1 failed. */
+int dbi_one(struct sd_db *db, sqlite3_stmt *st, const char *what, dbi_row_fn fn, void *rec,
+	    struct sd_err *e);
 int dbi_collect(struct sd_db *db, sqlite3_stmt *st, size_t size, dbi_row_fn fn, void **out,
 		int *n, const char *what, struct sd_err *e);
 /* Opens db->path read-only (a snapshot where the folder cannot hold the WAL index). */

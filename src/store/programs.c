@@ -11,7 +11,6 @@ int db_program_add(struct sd_db *db, const char *name, const char *src, size_t l
 {
 	sqlite3_stmt *st = NULL;
 	long long taken;
-	int ret = -1;
 
 	if (text_check("program name", name, strlen(name), e))
 		return -1;
@@ -38,14 +37,10 @@ int db_program_add(struct sd_db *db, const char *name, const char *src, size_t l
 	sqlite3_bind_text(st, 2, is_csv ? "csv" : "ini", -1, SQLITE_STATIC);
 	/* A zero-length blob must still be a blob, not NULL. */
 	sqlite3_bind_blob(st, 3, len ? src : "", (int)len, SQLITE_TRANSIENT);
-	if (dbi_exec_step(db, st, "add the program", e))
-		goto done;
-	if (id)
-		*id = sqlite3_last_insert_rowid(db->h);
-	ret = 0;
+	return dbi_insert(db, st, "add the program", id, e);
 done:
-	sqlite3_finalize(st);
-	return ret;
+	sqlite3_finalize(st);   /* NULL, or a statement that failed before the insert */
+	return -1;
 }
 
 static int row_program(sqlite3_stmt *st, struct db_program *p, int with_source, struct sd_err *e)
@@ -72,32 +67,29 @@ static int row_program(sqlite3_stmt *st, struct db_program *p, int with_source, 
 	return 0;
 }
 
+static int with_source(sqlite3_stmt *st, void *rec, struct sd_err *e)
+{
+	return row_program(st, rec, 1, e);
+}
+
 static int get_by(struct sd_db *db, const char *sql, const char *name, long long id,
 		  struct db_program *out, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	int ret = -1, rc;
+	int rc;
 
 	if (dbi_prepare(db, sql, &st, e))
-		goto done;
+		return -1;
 	if (name)
 		sqlite3_bind_text(st, 1, name, -1, SQLITE_TRANSIENT);
 	else
 		sqlite3_bind_int64(st, 1, id);
-	rc = dbi_step_row(db, st, "read programs", e);
-	if (rc == 0) {
-		if (name)
-			sd_fail(e, "unknown program '%s' (see 'setdose program list')", name);
-		else
-			sd_fail(e, "unknown program id %lld", id);
-		goto done;
-	}
-	if (rc < 0)
-		goto done;
-	ret = row_program(st, out, 1, e);
-done:
-	sqlite3_finalize(st);
-	return ret;
+	rc = dbi_one(db, st, "read programs", with_source, out, e);
+	if (rc == 0 && name)
+		sd_fail(e, "unknown program '%s' (see 'setdose program list')", name);
+	else if (rc == 0)
+		sd_fail(e, "unknown program id %lld", id);
+	return rc > 0 ? 0 : -1;
 }
 
 int db_program_get(struct sd_db *db, const char *name, struct db_program *out, struct sd_err *e)

@@ -9,7 +9,6 @@
 int db_test_add(struct sd_db *db, const struct db_test *t, long long *id, struct sd_err *e)
 {
 	sqlite3_stmt *st = NULL;
-	int ret = -1;
 
 	if (text_check("lift name", t->lift, strlen(t->lift), e))
 		return -1;
@@ -23,14 +22,10 @@ int db_test_add(struct sd_db *db, const struct db_test *t, long long *id, struct
 	sqlite3_bind_int(st, 5, t->reps);
 	sqlite3_bind_double(st, 6, t->e1rm_kg);
 	sqlite3_bind_text(st, 7, t->formula, -1, SQLITE_TRANSIENT);
-	if (dbi_exec_step(db, st, "add the test", e))
-		goto done;
-	if (id)
-		*id = sqlite3_last_insert_rowid(db->h);
-	ret = 0;
+	return dbi_insert(db, st, "add the test", id, e);
 done:
-	sqlite3_finalize(st);
-	return ret;
+	sqlite3_finalize(st);   /* NULL, or a statement that failed before the insert */
+	return -1;
 }
 
 static int collect_test(sqlite3_stmt *st, void *rec, struct sd_err *e)

@@ -94,6 +94,28 @@ fail:
 	return -1;
 }
 
+int dbi_insert(struct sd_db *db, sqlite3_stmt *st, const char *what, long long *id,
+	       struct sd_err *e)
+{
+	int ret = dbi_exec_step(db, st, what, e);
+
+	if (!ret && id)
+		*id = sqlite3_last_insert_rowid(db->h);
+	sqlite3_finalize(st);
+	return ret;
+}
+
+int dbi_one(struct sd_db *db, sqlite3_stmt *st, const char *what, dbi_row_fn fn, void *rec,
+	    struct sd_err *e)
+{
+	int rc = dbi_step_row(db, st, what, e);
+
+	if (rc > 0 && fn(st, rec, e))
+		rc = -1;
+	sqlite3_finalize(st);
+	return rc;
+}
+
 int dbi_step_row(struct sd_db *db, sqlite3_stmt *st, const char *what, struct sd_err *e)
 {
 	int rc = sqlite3_step(st);

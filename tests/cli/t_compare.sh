@@ -26,9 +26,11 @@ has out '^sessions +1 +2'
 has out 'Not medical advice'
 
 run 0 "$SD" compare --format csv a.ini b.ini
-has out '^A,B,chest,3\.00,8\.00,2\.8167,2\.2585,3\.3780,2\.3480,3\.2876,some-gain$' "csv row by hand"
-has out '^program,hard_sets,sessions,sets_per_session,under_plateau,past_plateau,beyond_evidence,over_session_cap$'
-has out '^B,8,2,4\.00,'
+has out '^difference,A,B,,chest,3\.00,8\.00,,,,,2\.8167,2\.2585,3\.3780,2\.3480,3\.2876,some-gain,,,,,,,$' "csv row by hand"
+check "compare CSV is one table: every line has the header's 24 fields" sh -c "awk -F, 'NF != 24 { exit 1 }' '$TMP/out'"
+has out '^row,program,second,source,muscle,' "one header, first line"
+has out ',hard_sets,sessions,sets_per_session,under_plateau,past_plateau,beyond_evidence,over_session_cap$' "the totals columns close the header"
+has out '^totals,B,,b\.ini,,,,,,,,,,,,,,8,2,4\.00,'
 
 run 0 "$SD" compare --format json a.ini b.ini c.ini
 check "json: programs, all three pairs, hand values" python3 - "$TMP/out" <<'PY'

@@ -11,8 +11,8 @@ MIN="Tidewater minimal, two days"
 "$SD" audit --format csv "$ROOT/profiles/demo-minimal2.ini" >audit.csv 2>&1
 CHEST=$(awk -F, '$(NF-17) == "chest" { printf "chest {1,}%.1f .* %+.1f {1,}%.1f to %.1f {1,}%+.2f %s", $(NF-14), $(NF-11), $(NF-10), $(NF-9), $(NF-4), $(NF-1) }' audit.csv | sed 's/+/\\+/g')
 "$SD" --db "$DB" compare --format csv "$FB" "$MIN" >compare.csv 2>&1
-PAIR=$(awk -F, '$1 == "A" && $2 == "B" && $3 == "chest" { printf "chest {1,}%.1f {1,}%.1f .* %+.1f {1,}%.1f to %.1f {1,}%s", $4, $5, $6, $7, $8, $11 }' compare.csv | sed 's/+/\\+/g')
-DECISION=$(awk -F, '$1 == "A" && $2 == "B" && $3 == "chest" { print $NF }' compare.csv)
+PAIR=$(awk -F, '$1 == "difference" && $2 == "A" && $3 == "B" && $5 == "chest" { printf "chest {1,}%.1f {1,}%.1f .* %+.1f {1,}%.1f to %.1f {1,}%s", $6, $7, $12, $13, $14, $17 }' compare.csv | sed 's/+/\\+/g')
+DECISION=$(awk -F, '$1 == "difference" && $2 == "A" && $3 == "B" && $5 == "chest" { print $17 }' compare.csv)
 PLATEAU=$("$SD" --weeks 12 returns | sed -n 's/^Practical plateau: \([0-9.]*\) .*/\1/p')
 READ5=$("$SD" --weeks 12 curve --step 0.5 --no-plot --format csv |
 	awk -F, -v x="$PLATEAU" '$1 == x { printf "at %.1f sets: gain %+.1f%%  95%%: curve %.1f to %.1f  group %.1f to %.1f", x, $2, $3, $4, $5, $6 }' |
