@@ -5,6 +5,10 @@ BINDIR   = $(PREFIX)/bin
 MANDIR   = $(PREFIX)/share/man/man1
 DATADIR  = $(PREFIX)/share/setdose
 LIBDIR   = $(PREFIX)/lib/setdose
+# Where each shell looks for completions of installed programs (Debian's paths).
+BASHCOMPDIR = $(PREFIX)/share/bash-completion/completions
+ZSHCOMPDIR  = $(PREFIX)/share/zsh/vendor-completions
+FISHCOMPDIR = $(PREFIX)/share/fish/vendor_completions.d
 
 CC      ?= cc
 B       ?= build
@@ -13,7 +17,8 @@ SAN     ?=
 PKGS     = ncursesw sqlite3 gsl libcjson
 MOD_PKGS = cairo fontconfig
 DEPS_DEB = build-essential pkg-config libncurses-dev libsqlite3-dev libiniparser-dev libgsl-dev \
-           libcairo2-dev libcmocka-dev libcjson-dev tmux sqlite3 valgrind poppler-utils clang
+           libcairo2-dev libcmocka-dev libcjson-dev tmux sqlite3 valgrind poppler-utils clang \
+           zsh fish mandoc dpkg-dev
 
 # Every flag that asks pkg-config or dpkg-buildflags is a recursive (=) variable, evaluated when a
 # recipe first uses it: `make deps demo` installs the packages before anything asks for their
@@ -207,6 +212,10 @@ install: $(B)/setdose $(MOD) $(MOD)
 	install -m 755 $(B)/setdose $(DESTDIR)$(BINDIR)/setdose
 	install -d $(DESTDIR)$(LIBDIR)
 	install -m 644 $(MOD) $(DESTDIR)$(LIBDIR)/chart.so
+	install -d $(DESTDIR)$(BASHCOMPDIR) $(DESTDIR)$(ZSHCOMPDIR) $(DESTDIR)$(FISHCOMPDIR)
+	install -m 644 completions/setdose.bash $(DESTDIR)$(BASHCOMPDIR)/setdose
+	install -m 644 completions/_setdose $(DESTDIR)$(ZSHCOMPDIR)/_setdose
+	install -m 644 completions/setdose.fish $(DESTDIR)$(FISHCOMPDIR)/setdose.fish
 	install -m 644 man/setdose.1 $(DESTDIR)$(MANDIR)/setdose.1
 	install -m 644 profiles/*.ini $(DESTDIR)$(DATADIR)/
 	if ls profiles/*.csv >/dev/null 2>&1; then install -m 644 profiles/*.csv $(DESTDIR)$(DATADIR)/; fi
@@ -214,6 +223,8 @@ install: $(B)/setdose $(MOD) $(MOD)
 
 uninstall:
 	rm -f $(DESTDIR)$(BINDIR)/setdose $(DESTDIR)$(MANDIR)/setdose.1
+	rm -f $(DESTDIR)$(BASHCOMPDIR)/setdose $(DESTDIR)$(ZSHCOMPDIR)/_setdose \
+	    $(DESTDIR)$(FISHCOMPDIR)/setdose.fish
 	rm -rf $(DESTDIR)$(DATADIR) $(DESTDIR)$(LIBDIR)
 
 clean:

@@ -12,6 +12,7 @@
 #include "app/parse.h"
 #include "cmd/cmd.h"
 #include "core/limits.h"
+#include "io/defaults_io.h"
 #include "io/library_io.h"
 #include "io/profile_io.h"
 #include "store/db.h"
@@ -19,97 +20,6 @@
 #ifndef SD_VERSION
 #define SD_VERSION "0.1.0"
 #endif
-
-/* What the global options fill: the run's options, and the two that stop the run early. */
-struct gvals {
-	struct sd_opts o;
-	int version, help;
-};
-
-static int parse_number(const char *opt, const char *v, double lo, double hi, double *out,
-			struct sd_err *e)
-{
-	char what[32];
-	snprintf(what, sizeof what, "--%s", opt);
-	return app_num(what, v, lo, hi, out, e);
-}
-
-/* Each global option by name (the table below), with its own checks. */
-static int gapply(void *dst, const struct sd_optdef *d, const char *v, struct sd_err *e)
-{
-	struct gvals *g = dst;
-	struct sd_opts *o = &g->o;
-	const char *name = d->name;
-	double x;
-
-	if (!strcmp(name, "db"))
-		o->db_path = v;
-	else if (!strcmp(name, "profile"))
-		o->profile_path = v;
-	else if (!strcmp(name, "exercises"))
-		o->exercises_path = v;
-	else if (!strcmp(name, "format")) {
-		if (!strcmp(v, "table"))
-			o->format = SD_FMT_TABLE;
-		else if (!strcmp(v, "csv"))
-			o->format = SD_FMT_CSV;
-		else if (!strcmp(v, "json"))
-			o->format = SD_FMT_JSON;
-		else
-			return sd_usage(e, "--format wants table, csv or json, not '%s'", v);
-	} else if (!strcmp(name, "status")) {
-		if (strcmp(v, "trained") && strcmp(v, "untrained"))
-			return sd_usage(e, "--status wants trained or untrained, not '%s'", v);
-		o->status_set = 1;
-		o->trained = !strcmp(v, "trained");
-	} else if (!strcmp(name, "weeks")) {
-		if (parse_number(name, v, SD_WEEKS_MIN, SD_WEEKS_MAX, &o->weeks, e))
-			return -1;
-		o->weeks_set = 1;
-	} else if (!strcmp(name, "level")) {
-		if (parse_number(name, v, 0.5, 0.999, &o->level, e))
-			return -1;
-	} else if (!strcmp(name, "swc")) {
-		if (parse_number(name, v, 0.1, 50, &o->swc_pct, e))
-			return -1;
-		o->swc_set = 1;
-	} else if (!strcmp(name, "units")) {
-		if (strcmp(v, "kg") && strcmp(v, "lb"))
-			return sd_usage(e, "--units wants kg or lb, not '%s'", v);
-		o->units_lb = !strcmp(v, "lb");
-		o->units_set = 1;
-	} else if (!strcmp(name, "max-rir")) {
-		if (parse_number(name, v, 0, 10, &x, e))
-			return -1;
-		o->max_rir = (int)x;
-		if (x != o->max_rir)
-			return sd_usage(e, "--max-rir wants a whole number, not '%s'", v);
-	} else if (!strcmp(name, "no-color"))
-		o->color = 0;
-	else if (!strcmp(name, "version"))
-		g->version = 1;
-	else if (!strcmp(name, "help"))
-		g->help = 1;
-	return 0;
-}
-
-#define G(n, a, h) { n, OPT_CALL, 0, 0, 0, gapply, a, h }
-static const struct sd_optdef gdefs[] = {
-	G("db", "PATH", "database (default $XDG_DATA_HOME/setdose/setdose.db, or SETDOSE_DB)"),
-	G("profile", "PATH", "dose-response profile (default: bundled strength.ini)"),
-	G("exercises", "FILE", "one more exercise library file for this run"),
-	G("format", "FMT", "table, csv or json"),
-	G("status", "S", "trained or untrained (default untrained)"),
-	G("weeks", "N", "block length in weeks (default: the program's, else 10)"),
-	G("level", "L", "confidence level (default 0.95)"),
-	G("swc", "PCT", "smallest worthwhile change in percent (default: the profile's)"),
-	G("max-rir", "N", "sets with RIR above N are not hard sets (default 4)"),
-	G("units", "U", "load units, kg or lb"),
-	G("no-color", NULL, "no colour (NO_COLOR is honoured too)"),
-	G("version", NULL, "print the version and the database schema version"),
-	G("help", NULL, "this text; after a command, that command's help"),
-};
-#undef G
 
 /* The option table of the command, or of its subcommand named by the first argument; 1 when
  * that subcommand exists. */
@@ -161,16 +71,16 @@ static int extract_globals(int *argc, char **argv, struct gvals *g, struct sd_er
 		}
 		if (cmd && (kc = opt_find(label, cdefs, ncdefs, a, &val, e)) == -2)
 			return -1;
-		kg = opt_find("setdose", gdefs, OPT_N(gdefs), a, &val, e);
+		kg = opt_find("setdose", sd_global_opts, sd_nglobal_opts, a, &val, e);
 		if (kg == -2 && kc < 0)
 			return -1;
 		/* A name both tables know: the exact one wins; two prefixes are ambiguous. */
 		if (kc >= 0 && kg >= 0) {
 			size_t len = strcspn(a + 2, "=");
-			int cexact = strlen(cdefs[kc].name) == len, gexact = strlen(gdefs[kg].name) == len;
+			int cexact = strlen(cdefs[kc].name) == len, gexact = strlen(sd_global_opts[kg].name) == len;
 			if (cexact == gexact)
 				return sd_usage(e, "option '%s' is ambiguous: --%s or --%s (see 'setdose help "
-						"%s')", a, cdefs[kc].name, gdefs[kg].name, label);
+						"%s')", a, cdefs[kc].name, sd_global_opts[kg].name, label);
 			if (cexact)
 				kg = -1;
 		}
@@ -181,15 +91,15 @@ static int extract_globals(int *argc, char **argv, struct gvals *g, struct sd_er
 				argv[out++] = argv[++i];
 			continue;
 		}
-		if (gdefs[kg].arg && !val) {
+		if (sd_global_opts[kg].arg && !val) {
 			if (i + 1 >= *argc)
 				return sd_usage(e, "option '--%s' needs a value (see 'setdose --help')",
-						gdefs[kg].name);
+						sd_global_opts[kg].name);
 			val = argv[++i];
-		} else if (!gdefs[kg].arg && val)
+		} else if (!sd_global_opts[kg].arg && val)
 			return sd_usage(e, "option '--%s' takes no value (see 'setdose --help')",
-					gdefs[kg].name);
-		if (opt_apply("setdose", &gdefs[kg], g, val, e))
+					sd_global_opts[kg].name);
+		if (opt_apply("setdose", &sd_global_opts[kg], g, val, e))
 			return -1;
 	}
 	for (; i < *argc; i++)
@@ -242,9 +152,37 @@ static void print_help(FILE *f)
 	for (int i = 0; sd_commands[i]; i++)
 		fprintf(f, "  %-10s %s\n", sd_commands[i]->name, sd_commands[i]->summary);
 	fprintf(f, "\nglobal options (anywhere on the line, before \"--\"):\n");
-	opt_help(f, gdefs, OPT_N(gdefs));
+	opt_help(f, sd_global_opts, sd_nglobal_opts);
 	fprintf(f, "\n'setdose help COMMAND' shows a command's options; 'man setdose' has everything.\n"
 		"Population-average model: individual responses vary. Not medical advice.\n");
+}
+
+/* One setting of the defaults file: a global option that takes a value, by its name (an
+ * underscore may stand for the dash). SETDOSE_DB, when set, wins over the file's db. */
+static int apply_default(const char *key, const char *value, int line, void *arg,
+			 struct sd_err *e)
+{
+	struct gvals *g = arg;
+	char name[32];
+	const char *env = getenv("SETDOSE_DB");
+
+	snprintf(name, sizeof name, "%s", key);
+	for (char *c = name; *c; c++)
+		if (*c == '_')
+			*c = '-';
+	for (int i = 0; i < sd_nglobal_opts; i++) {
+		const struct sd_optdef *d = &sd_global_opts[i];
+		if (strcmp(d->name, name) || !d->arg)
+			continue;
+		if (!strcmp(name, "db") && env && *env)
+			return 0;
+		if (opt_apply("setdose", d, g, value, e))
+			return sd_wrap(e, "defaults file '%s' line %d", g->defaults_path, line);
+		return 0;
+	}
+	return sd_usage(e, "defaults file '%s' line %d: unknown setting '%s' (one of units, max-rir, "
+			"status, weeks, db, profile, exercises, level, swc, format)",
+			g->defaults_path, line, key);
 }
 
 /* Every option of the command line is checked against the command's table before anything is
@@ -306,6 +244,7 @@ int main(int argc, char **argv)
 	struct sd_err err;
 	const struct sd_cmd *cmd;
 	struct gvals g;
+	char dpath[SD_PATH_MAX], *dtext = NULL;
 	int rc = SD_EXIT_OK;
 	const char *nc = getenv("NO_COLOR");
 
@@ -321,6 +260,10 @@ int main(int argc, char **argv)
 
 	memset(&g, 0, sizeof g);
 	g.o = ctx.opt;
+	/* The user's defaults first, then the command line over them. */
+	if ((g.defaults_path = defaults_path(dpath, sizeof dpath)) &&
+	    defaults_read(dpath, apply_default, &g, &dtext, &err))
+		goto fail;
 	if (extract_globals(&argc, argv, &g, &err))
 		goto fail;
 	ctx.opt = g.o;
@@ -368,6 +311,7 @@ done:
 	if (ctx.db)
 		db_close(ctx.db);
 	lib_free(&ctx.lib);
+	free(dtext);
 	if (fflush(stdout) || ferror(stdout)) {
 		fprintf(stderr, "setdose: cannot write output: %s\n", strerror(errno));
 		rc = SD_EXIT_FAIL;

@@ -44,6 +44,16 @@ struct sd_cmd {
 
 extern const struct sd_cmd *const sd_commands[];  /* NULL-terminated */
 
+/* What the global options fill: the run's options, and the two that stop the run early. */
+struct gvals {
+	struct sd_opts o;
+	int version, help;
+	const char *defaults_path;   /* the defaults file being read, for its messages */
+};
+/* The global options (globals.c); opt_apply with a struct gvals. */
+extern const struct sd_optdef sd_global_opts[];
+extern const int sd_nglobal_opts;
+
 /* Finds a command by exact name, alias or unique prefix; on ambiguity fills e listing the
  * candidates. */
 const struct sd_cmd *cmd_find(const char *name, struct sd_err *e);

@@ -8,7 +8,7 @@ extern const struct sd_cmd cmd_audit, cmd_curve, cmd_returns, cmd_exercises, cmd
 extern const struct sd_cmd cmd_athlete, cmd_program, cmd_block, cmd_test, cmd_e1rm, cmd_response,
 	cmd_db;
 extern const struct sd_cmd cmd_effects, cmd_fit, cmd_slopes;
-extern const struct sd_cmd cmd_browse;
+extern const struct sd_cmd cmd_browse, cmd_complete;
 extern const struct sd_cmd cmd_compare, cmd_allot;
 
 const struct sd_cmd *const sd_commands[] = {
@@ -33,6 +33,7 @@ const struct sd_cmd *const sd_commands[] = {
 	&cmd_slopes,
 	&cmd_browse,
 	&cmd_help,
+	&cmd_complete,
 	NULL,
 };
 
