@@ -16,6 +16,6 @@ int dbu_confirm(const char *question, struct sd_err *e);
 int dbu_subcommand(struct sd_ctx *ctx, const struct sd_cmd *cmd, int argc, char **argv,
 		   struct sd_err *e);
 
-/* Refuses a negative number among the arguments before getopt could take it for an option. */
+/* Refuses a negative number among the arguments ("bad value: must be positive"). */
 int dbu_no_negatives(int argc, char **argv, struct sd_err *e);
 #endif

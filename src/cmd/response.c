@@ -11,8 +11,8 @@
 #include "../core/response.h"
 #include "../core/units.h"
 #include "../io/audit_out.h"
-#include "../io/jsonout.h"
 #include "../io/recout.h"
+#include "../io/response_out.h"
 #include "../app/respdata.h"
 #include "dbutil.h"
 
@@ -147,44 +147,10 @@ static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const stru
 		      const struct resp_data *rs, const struct sd_rec *r, const struct resp_personal *pr,
 		      struct sd_err *e)
 {
-	const struct resp_vars *v = &rs->vars;
-	char *name = rec_json_string(a->name), *prof = json_profile_text(&ctx->profile);
-	char *why = rec_json_string(v->why);
-	char test[32], level[32], window[16], personal[640], vars[512];
-	const char *extra[] = { "athlete", name, "status", a->trained ? "\"trained\"" : "\"untrained\"",
-		"profile", prof, "test_error", test, "level", level, "window_days", window,
-		"variances", vars, "personal", personal, "caution", NULL, NULL };
-	char *caution = rec_json_string(aout_caution);
-	int rc = 0;
+	struct resp_json in = { a->name, a->trained, &ctx->profile, ra->ro.test_sd, ra->ro.level,
+				ra->window, &rs->vars, pr, rs->nblocks };
 
-	extra[17] = caution;
-	if (!name || !prof || !why || !caution) {
-		rc = sd_fail(e, "out of memory");
-		goto done;
-	}
-	snprintf(test, sizeof test, "%.6g", ra->ro.test_sd);
-	snprintf(level, sizeof level, "%.6g", ra->ro.level);
-	snprintf(window, sizeof window, "%lld", ra->window);
-	snprintf(vars, sizeof vars,
-		 "{\"source\": \"%s\", \"athlete\": %.8f, \"block\": %.8f, \"block_cov_slope\": %.8f, "
-		 "\"block_slope\": %.8f, \"roster_athletes\": %d, \"roster_repeated\": %d, "
-		 "\"roster_observations\": %d, \"mean_deviation\": %.8f, \"mean_deviation_se\": %.8f, "
-		 "\"why_priors\": %s}", v->estimated ? "roster-reml" : "priors", v->athlete, v->block,
-		 v->block_cov, v->block_slope, v->roster_athletes, v->roster_repeated, v->roster_obs,
-		 v->mean_dev, v->mean_dev_se, v->estimated ? "null" : why);
-	snprintf(personal, sizeof personal,
-		 "{\"observations\": %d, \"blocks\": %d, \"lnrr\": %.6f, \"sd\": %.6f, "
-		 "\"low\": %.6f, \"high\": %.6f, \"pct\": %.3f, \"pct_low\": %.3f, \"pct_high\": %.3f, "
-		 "\"unshrunk_lnrr\": %.6f, \"unshrunk_se\": %.6f, \"data_weight\": %.4f}",
-		 pr->n, rs->nblocks, pr->mean, pr->sd, pr->lo, pr->hi, curve_pct(pr->mean),
-		 curve_pct(pr->lo), curve_pct(pr->hi), pr->raw, pr->raw_se, pr->weight);
-	rec_print_json_object(r, "observations", ctx->out, extra);
-done:
-	free(name);
-	free(prof);
-	free(why);
-	free(caution);
-	return rc;
+	return resp_out_json(ctx->out, &in, r) ? sd_fail(e, "out of memory") : 0;
 }
 
 static int print_csv(struct sd_ctx *ctx, const struct rargs *ra, const struct resp_data *rs,

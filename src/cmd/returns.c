@@ -3,13 +3,15 @@
 #include <stdlib.h>
 #include <string.h>
 
-#include "../io/jsonout.h"
-#include "../io/table.h"
+#include "../io/returns_out.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_returns;
 
 #define MAX_DOSES 32
+
+_Static_assert((int)RET_TABLE == (int)SD_FMT_TABLE && (int)RET_CSV == (int)SD_FMT_CSV &&
+	       (int)RET_JSON == (int)SD_FMT_JSON, "returns formats follow SD_FMT_*");
 
 static int parse_doses(const char *s, double *d, int *n, double max, struct sd_err *e)
 {
@@ -29,24 +31,6 @@ static int parse_doses(const char *s, double *d, int *n, double max, struct sd_e
 	if (*n < 2)
 		return sd_usage(e, "--doses needs at least two values");
 	return 0;
-}
-
-static void long_rows(struct sd_ctx *ctx, const double *d, int n, const struct sd_covars *cov,
-		      struct sd_table *t)
-{
-	for (int i = 0; i < n; i++)
-		for (int j = i + 1; j < n; j++) {
-			struct sd_delta dl;
-			curve_delta(&ctx->profile, cov, d[i], d[j], ctx->opt.level, 0, &dl);
-			tbl_row(t);
-			tbl_set(t, 0, "%g", d[i]);
-			tbl_set(t, 1, "%g", d[j]);
-			tbl_set(t, 2, "%.3f", curve_pct(dl.d));
-			tbl_set(t, 3, "%.3f", curve_pct(dl.lo));
-			tbl_set(t, 4, "%.3f", curve_pct(dl.hi));
-			tbl_set(t, 5, "%s", dl.practical ? "yes" : "no");
-			tbl_set(t, 6, "%s", dl.statistical ? "yes" : "no");
-		}
 }
 
 static const struct sd_optdef opts[] = {
@@ -74,67 +58,16 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 		for (size_t i = 0; i < sizeof dflt / sizeof *dflt && dflt[i] <= p->dose_max; i++)
 			d[n++] = dflt[i];
 
-	if (ctx->opt.format != SD_FMT_TABLE) {
-		static const char *const heads[] = { "from", "to", "delta_pct", "ci_low", "ci_high",
-						     "practical", "statistical" };
-		struct sd_table *t = tbl_new(7, heads);
-		if (!t)
-			return sd_fail(e, "out of memory");
-		long_rows(ctx, d, n, &cov, t);
-		if (ctx->opt.format == SD_FMT_CSV)
-			tbl_print(t, ctx->out, 1);
-		else {
-			/* JSON: the same rows as objects, plus the plateau. */
-			char *prof = json_profile_text(p);
-			fprintf(ctx->out, "{\"profile\": %s, \"plateau\": %g, \"swc_pct\": %.4f, \"level\": %g, "
-				"\"weeks\": %g, \"weeks_beyond_evidence\": %s, \"returns\": [", prof ? prof : "null",
-				plateau, curve_pct(p->swc), ctx->opt.level, cov.weeks,
-				curve_beyond(p, &cov, p->dose_min) & SD_BEYOND_WEEKS ? "true" : "false");
-			free(prof);
-			for (int i = 0, k = 0; i < n; i++)
-				for (int j = i + 1; j < n; j++, k++) {
-					struct sd_delta dl;
-					curve_delta(p, &cov, d[i], d[j], ctx->opt.level, 0, &dl);
-					fprintf(ctx->out, "%s\n  {\"from\": %g, \"to\": %g, \"delta_pct\": %.4f, "
-						"\"ci_low\": %.4f, \"ci_high\": %.4f, \"practical\": %s, "
-						"\"statistical\": %s}", k ? "," : "", d[i], d[j], curve_pct(dl.d),
-						curve_pct(dl.lo), curve_pct(dl.hi), dl.practical ? "true" : "false",
-						dl.statistical ? "true" : "false");
-				}
-			fprintf(ctx->out, "\n]}\n");
-		}
-		tbl_free(t);
-		return 0;
-	}
-
-	/* The grid: row = from, column = to; each cell the extra gain in percent, marked '*' when
-	 * it exceeds the SWC and '+' when only its interval excludes zero. */
+	/* Every pair's difference, once, for whichever format prints it. */
+	struct sd_delta dl[MAX_DOSES * MAX_DOSES];
 	char note[240];
+	for (int i = 0; i < n; i++)
+		for (int j = i + 1; j < n; j++)
+			curve_delta(p, &cov, d[i], d[j], ctx->opt.level, 0, &dl[i * n + j]);
 	curve_context_note(p, &cov, note, sizeof note);
-	fprintf(ctx->out, "Extra gain (%%, as a ratio of gains) from moving FROM -> TO weekly fractional sets\n"
-		"%s, %g-week block; the average curve. '*' beyond the SWC (%.1f%%), '+' interval "
-		"excludes 0 only, '.' neither.\n%s%s%s\n     from\\to", cov.trained >= 0.5 ? "trained" :
-		"untrained", cov.weeks, curve_pct(p->swc), note[0] ? "warning: " : "", note,
-		note[0] ? "\n" : "");
-	for (int j = 1; j < n; j++)
-		fprintf(ctx->out, " %6g", d[j]);
-	fputc('\n', ctx->out);
-	for (int i = 0; i < n - 1; i++) {
-		fprintf(ctx->out, "%11g", d[i]);
-		for (int j = 1; j < n; j++) {
-			if (j <= i) {
-				fprintf(ctx->out, " %6s", "");
-				continue;
-			}
-			struct sd_delta dl;
-			curve_delta(p, &cov, d[i], d[j], ctx->opt.level, 0, &dl);
-			fprintf(ctx->out, " %5.1f%c", curve_pct(dl.d),
-				dl.practical ? '*' : dl.statistical ? '+' : '.');
-		}
-		fputc('\n', ctx->out);
-	}
-	fprintf(ctx->out, "\nPractical plateau: %g weekly fractional sets (from there, no dose up to %g "
-		"adds more than the SWC).\n", plateau, p->dose_max);
+	struct returns_view v = { p, cov, ctx->opt.level, plateau, d, n, dl, note };
+	if (returns_out_print(ctx->out, &v, ctx->opt.format))
+		return sd_fail(e, "out of memory");
 	cmd_print_caution(ctx);
 	return 0;
 }

@@ -1,4 +1,5 @@
 #include "recout.h"
+#include "recout_json.h"
 
 #include <stdarg.h>
 #include <stdlib.h>
@@ -144,4 +145,9 @@ char *rec_json_string(const char *s)
 
 	cJSON_Delete(j);
 	return out;
+}
+
+cJSON *rec_json_rows(const struct sd_rec *r)
+{
+	return r->arr ? cJSON_Duplicate(r->arr, 1) : cJSON_CreateArray();
 }
