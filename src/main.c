@@ -11,6 +11,7 @@
 
 #include "app/parse.h"
 #include "cmd/cmd.h"
+#include "cmd/dbutil.h"
 #include "core/limits.h"
 #include "io/defaults_io.h"
 #include "io/library_io.h"
@@ -296,7 +297,9 @@ int main(int argc, char **argv)
 		goto fail;
 	if (check_options(cmd, &argc, argv, &err) || setup(&ctx, cmd, &err))
 		goto fail;
-	if (cmd->exec(&ctx, argc - 1, argv + 1, &err))
+	/* A command made of subcommands runs the one its first argument names. */
+	if (cmd->exec ? cmd->exec(&ctx, argc - 1, argv + 1, &err) :
+	    dbu_subcommand(&ctx, cmd, argc - 1, argv + 1, &err))
 		goto fail;
 	goto done;
 fail:

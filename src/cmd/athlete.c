@@ -251,11 +251,6 @@ static const struct sd_sub subs[] = {
 	{ NULL, NULL, NULL, NULL, 0 },
 };
 
-static int exec_athlete(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
-{
-	return dbu_subcommand(ctx, &cmd_athlete, argc, argv, e);
-}
-
 const struct sd_cmd cmd_athlete = {
 	.name = "athlete",
 	.summary = "add, list, show, edit or remove athletes in the database",
@@ -267,6 +262,5 @@ const struct sd_cmd cmd_athlete = {
 		 "  --status and --units are global options: the training status used for the curve\n"
 		 "  (default untrained); kg or lb, how this athlete's loads are entered and shown",
 	.flags = CMD_DB,
-	.exec = exec_athlete,
 	.subs = subs,
 };

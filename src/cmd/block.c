@@ -199,11 +199,6 @@ static const struct sd_sub subs[] = {
 	{ NULL, NULL, NULL, NULL, 0 },
 };
 
-static int exec_block(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
-{
-	return dbu_subcommand(ctx, &cmd_block, argc, argv, e);
-}
-
 const struct sd_cmd cmd_block = {
 	.name = "block",
 	.summary = "training blocks: an athlete following a stored template from a date",
@@ -216,6 +211,5 @@ const struct sd_cmd cmd_block = {
 		 "             (planned weeks while open, start to end once ended)\n"
 		 "  end        closes the block (default date: today; not after today)",
 	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,
-	.exec = exec_block,
 	.subs = subs,
 };

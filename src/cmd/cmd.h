@@ -36,7 +36,7 @@ struct sd_cmd {
 	const char *summary;       /* one line for `setdose help` */
 	const char *usage;         /* "audit [--summary] PROGRAM..." plus option lines */
 	int flags;
-	int (*exec)(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e);
+	int (*exec)(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e);  /* NULL: subs */
 	const struct sd_optdef *opts;   /* the command's options, or NULL */
 	int nopts;
 	const struct sd_sub *subs;      /* subcommands (ended by a NULL name), or NULL */

@@ -204,11 +204,6 @@ static const struct sd_sub subs[] = {
 	{ NULL, NULL, NULL, NULL, 0 },
 };
 
-static int exec_program(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
-{
-	return dbu_subcommand(ctx, &cmd_program, argc, argv, e);
-}
-
 const struct sd_cmd cmd_program = {
 	.name = "program",
 	.summary = "store program templates in the database, list, show or remove them",
@@ -222,6 +217,5 @@ const struct sd_cmd cmd_program = {
 		 "  show     prints the stored text back byte for byte\n"
 		 "  rm       refuses while a block uses the template",
 	.flags = CMD_DB | CMD_LIBRARY,
-	.exec = exec_program,
 	.subs = subs,
 };

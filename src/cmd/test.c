@@ -123,11 +123,6 @@ static const struct sd_sub subs[] = {
 	{ NULL, NULL, NULL, NULL, 0 },
 };
 
-static int exec_test(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
-{
-	return dbu_subcommand(ctx, &cmd_test, argc, argv, e);
-}
-
 const struct sd_cmd cmd_test = {
 	.name = "test",
 	.summary = "record strength tests (1RM, or estimated from a rep set) and list them",
@@ -139,6 +134,5 @@ const struct sd_cmd cmd_test = {
 		 "             is estimated, with a warning above 10 reps; more than 20 is refused\n"
 		 "  The same test (athlete, lift, date, load, reps) is not recorded twice.",
 	.flags = CMD_DB | CMD_LIBRARY,
-	.exec = exec_test,
 	.subs = subs,
 };

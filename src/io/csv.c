@@ -255,17 +255,28 @@ static const char *trim(const char *s, size_t *len)
 	return s;
 }
 
-int csv_double(const char *s, double *out)
+/* The cell without its surrounding blanks, as a string in tmp (n bytes); -1 when empty or
+ * too long. */
+static int cell(const char *s, char *tmp, size_t n)
 {
-	char tmp[128], *end;
 	size_t len;
 	s = trim(s, &len);
-	if (!len || len >= sizeof tmp)
+	if (!len || len >= n)
 		return -1;
 	memcpy(tmp, s, len);
 	tmp[len] = '\0';
 	errno = 0;
-	double v = strtod(tmp, &end);
+	return 0;
+}
+
+int csv_double(const char *s, double *out)
+{
+	char tmp[128], *end;
+	double v;
+
+	if (cell(s, tmp, sizeof tmp))
+		return -1;
+	v = strtod(tmp, &end);
 	if (*end || errno || !isfinite(v))
 		return -1;
 	*out = v;
@@ -275,14 +286,11 @@ int csv_double(const char *s, double *out)
 int csv_int(const char *s, int *out)
 {
 	char tmp[32], *end;
-	size_t len;
-	s = trim(s, &len);
-	if (!len || len >= sizeof tmp)
+	long v;
+
+	if (cell(s, tmp, sizeof tmp))
 		return -1;
-	memcpy(tmp, s, len);
-	tmp[len] = '\0';
-	errno = 0;
-	long v = strtol(tmp, &end, 10);
+	v = strtol(tmp, &end, 10);
 	if (*end || errno || v > 1000000000L || v < -1000000000L)
 		return -1;
 	*out = (int)v;
