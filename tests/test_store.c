@@ -245,6 +245,47 @@ static void blocks_and_tests(void **state)
 	db_close(db);
 }
 
+/* The compact roster: sorted by name ignoring case, names folded for search, notes cut at
+ * note_max bytes, and the per-athlete counts from one query. */
+static void roster(void **state)
+{
+	struct sd_db *db = mem();
+	struct sd_err e = { 0 };
+	struct db_roster r;
+	struct db_athlete a = { 0 };
+	long long zed, bea, pid;
+	(void)state;
+	zed = add_athlete(db, "Zed Quill", 1);
+	snprintf(a.name, sizeof a.name, "bea Ostler");
+	snprintf(a.notes, sizeof a.notes, "left knee: no deep flexion");
+	a.units_lb = 1;
+	assert_int_equal(db_athlete_add(db, &a, &bea, &e), 0);
+	assert_int_equal(db_program_add(db, "P", "[d]\nsquat = 3\n", 13, 0, &pid, &e), 0);
+	assert_int_equal(db_block_add(db, zed, pid, "2024-01-08", 8, NULL, &e), 0);
+	assert_int_equal(db_block_add(db, zed, pid, "2024-03-04", 8, NULL, &e), 0);
+	assert_int_equal(db_roster_load(db, 9, 1, &r, &e), 0);
+	assert_int_equal(r.n, 2);
+	assert_string_equal(r.v[0].name, "bea Ostler");     /* b before Z: case ignored */
+	assert_string_equal(r.v[0].key, "bea ostler");
+	assert_string_equal(r.v[0].notes, "left knee");      /* first 9 bytes */
+	assert_int_equal(r.v[0].units_lb, 1);
+	assert_int_equal(r.v[0].nblocks, 0);
+	assert_string_equal(r.v[1].key, "zed quill");
+	assert_int_equal(r.v[1].trained, 1);
+	assert_int_equal(r.v[1].nblocks, 2);
+	assert_int_equal(r.v[1].ntests, 0);
+	assert_int_equal((int)strlen(r.v[1].created), 10);
+	db_roster_free(&r);
+	assert_int_equal(db_roster_load(db, 0, 0, &r, &e), 0);
+	assert_string_equal(r.v[0].notes, "left knee: no deep flexion");
+	assert_int_equal(r.v[1].nblocks, 0);                 /* not asked for */
+	db_roster_free(&r);
+	assert_int_equal(db_athlete_get_id(db, bea, &a, &e), 0);
+	assert_string_equal(a.name, "bea Ostler");
+	assert_int_equal(db_athlete_get_id(db, 999, &a, &e), -1);
+	db_close(db);
+}
+
 static void transactions(void **state)
 {
 	struct sd_db *db = mem();
@@ -350,6 +391,7 @@ int main(void)
 		cmocka_unit_test(athletes),
 		cmocka_unit_test(programs),
 		cmocka_unit_test(blocks_and_tests),
+		cmocka_unit_test(roster),
 		cmocka_unit_test(transactions),
 		cmocka_unit_test(files_backup_and_versions),
 		cmocka_unit_test(default_path),

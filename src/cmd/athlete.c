@@ -105,43 +105,41 @@ static int do_list(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	static const char *const heads[] = { "<name", "<status", "<units", "blocks", "tests",
 		"<created", "<notes" };
-	struct db_athlete *v = NULL;
+	struct db_roster v;
 	struct sd_rec *r = NULL;
-	int n = 0, rc = -1;
+	int rc = -1;
 
 	(void)argv;   /* takes no arguments; the signature is the subcommand table's */
 	if (argc != 1)
 		return usage(e);
-	if (db_athlete_list(ctx->db, &v, &n, e))
+	if (db_roster_load(ctx->db, 0, 1, &v, e))
 		return -1;
 	if (!(r = rec_new(7, heads, ctx->opt.format))) {
 		sd_fail(e, "out of memory");
 		goto done;
 	}
-	for (int i = 0; i < n; i++) {
-		int nb, nt;
-		if (db_athlete_refs(ctx->db, v[i].id, &nb, &nt, e))
-			goto done;
+	for (int i = 0; i < v.n; i++) {
+		const struct db_roster_row *a = &v.v[i];
 		if (rec_row(r)) {
 			sd_fail(e, "out of memory");
 			goto done;
 		}
-		rec_set(r, 0, "%s", v[i].name);
-		rec_set(r, 1, "%s", v[i].trained ? "trained" : "untrained");
-		rec_set(r, 2, "%s", units_name(v[i].units_lb));
-		rec_set(r, 3, "%d", nb);
-		rec_set(r, 4, "%d", nt);
-		rec_set(r, 5, "%.10s", v[i].created);
-		rec_set(r, 6, "%s", v[i].notes);
+		rec_set(r, 0, "%s", a->name);
+		rec_set(r, 1, "%s", a->trained ? "trained" : "untrained");
+		rec_set(r, 2, "%s", units_name(a->units_lb));
+		rec_set(r, 3, "%d", a->nblocks);
+		rec_set(r, 4, "%d", a->ntests);
+		rec_set(r, 5, "%s", a->created);
+		rec_set(r, 6, "%s", a->notes);
 	}
-	if (!n && ctx->opt.format == SD_FMT_TABLE)
+	if (!v.n && ctx->opt.format == SD_FMT_TABLE)
 		fprintf(ctx->out, "no athletes yet (add one with 'setdose athlete add NAME')\n");
 	else
 		rec_print(r, ctx->out);
 	rc = 0;
 done:
 	rec_free(r);
-	free(v);
+	db_roster_free(&v);
 	return rc;
 }
 

@@ -134,6 +134,124 @@ done:
 	return ret;
 }
 
+/* Appends the n bytes at s (and a NUL) to the pool; the offset, or -1 when out of memory.
+ * Offsets, not pointers: the pool moves as it grows. */
+static long long pool_add(struct db_roster *r, const char *s, size_t n, int fold)
+{
+	size_t at = r->used;
+
+	if (r->used + n + 1 > r->cap) {
+		size_t cap = r->cap ? r->cap : 1 << 16;
+		char *p;
+		while (r->used + n + 1 > cap)
+			cap *= 2;
+		if (!(p = realloc(r->pool, cap)))
+			return -1;
+		r->pool = p;
+		r->cap = cap;
+	}
+	for (size_t i = 0; i < n; i++)
+		r->pool[at + i] = fold && s[i] >= 'A' && s[i] <= 'Z' ? (char)(s[i] + 32) : s[i];
+	r->pool[at + n] = '\0';
+	r->used += n + 1;
+	return (long long)at;
+}
+
+/* The counts come from two grouped scans joined once, not two queries per athlete. */
+#define ROSTER_SELECT "SELECT a.id, a.name, a.status = 'trained', a.units = 'lb', "
+#define ROSTER_COUNTS ", coalesce(b.n, 0), coalesce(t.n, 0), substr(a.created, 1, 10) " \
+	"FROM athletes a LEFT JOIN (SELECT athlete_id, count(*) AS n FROM blocks GROUP BY " \
+	"athlete_id) b ON b.athlete_id = a.id LEFT JOIN (SELECT athlete_id, count(*) AS n FROM " \
+	"tests GROUP BY athlete_id) t ON t.athlete_id = a.id ORDER BY a.name COLLATE NOCASE"
+#define ROSTER_PLAIN ", 0, 0, substr(a.created, 1, 10) FROM athletes a ORDER BY a.name COLLATE NOCASE"
+
+int db_roster_load(struct sd_db *db, int note_max, int with_counts, struct db_roster *r,
+		   struct sd_err *e)
+{
+	sqlite3_stmt *st = NULL;
+	long long (*off)[3] = NULL;
+	int cap = 0, rc;
+
+	static const char *const sql[2][2] = {
+		{ ROSTER_SELECT "a.notes" ROSTER_PLAIN, ROSTER_SELECT "a.notes" ROSTER_COUNTS },
+		{ ROSTER_SELECT "substr(a.notes, 1, ?1)" ROSTER_PLAIN,
+		  ROSTER_SELECT "substr(a.notes, 1, ?1)" ROSTER_COUNTS },
+	};
+
+	memset(r, 0, sizeof *r);
+	if (dbi_prepare(db, sql[note_max > 0][with_counts != 0], &st, e))
+		return -1;
+	if (note_max > 0)
+		sqlite3_bind_int(st, 1, note_max);
+	while ((rc = dbi_step_row(db, st, "read athletes", e)) > 0) {
+		const char *name = (const char *)sqlite3_column_text(st, 1);
+		const char *notes = (const char *)sqlite3_column_text(st, 4);
+		size_t ln = (size_t)sqlite3_column_bytes(st, 1), lt = (size_t)sqlite3_column_bytes(st, 4);
+		if (r->n == cap) {
+			int ncap = cap ? 2 * cap : 1024;
+			struct db_roster_row *v = realloc(r->v, (size_t)ncap * sizeof *v);
+			long long (*o)[3] = realloc(off, (size_t)ncap * sizeof *o);
+			if (v)
+				r->v = v;
+			if (o)
+				off = o;
+			if (!v || !o)
+				goto oom;
+			cap = ncap;
+		}
+		r->v[r->n].id = sqlite3_column_int64(st, 0);
+		r->v[r->n].trained = (unsigned char)sqlite3_column_int(st, 2);
+		r->v[r->n].units_lb = (unsigned char)sqlite3_column_int(st, 3);
+		r->v[r->n].nblocks = sqlite3_column_int(st, 5);
+		r->v[r->n].ntests = sqlite3_column_int(st, 6);
+		dbi_text(st, 7, r->v[r->n].created, sizeof r->v[r->n].created);
+		if ((off[r->n][0] = pool_add(r, name ? name : "", name ? ln : 0, 0)) < 0 ||
+		    (off[r->n][1] = pool_add(r, name ? name : "", name ? ln : 0, 1)) < 0 ||
+		    (off[r->n][2] = pool_add(r, notes ? notes : "", notes ? lt : 0, 0)) < 0)
+			goto oom;
+		r->n++;
+	}
+	sqlite3_finalize(st);
+	st = NULL;
+	if (rc < 0)
+		goto fail;
+	for (int i = 0; i < r->n; i++) {
+		r->v[i].name = r->pool + off[i][0];
+		r->v[i].key = r->pool + off[i][1];
+		r->v[i].notes = r->pool + off[i][2];
+	}
+	free(off);
+	return 0;
+oom:
+	sd_fail(e, "out of memory");
+fail:
+	sqlite3_finalize(st);
+	free(off);
+	db_roster_free(r);
+	return -1;
+}
+
+void db_roster_free(struct db_roster *r)
+{
+	free(r->v);
+	free(r->pool);
+	memset(r, 0, sizeof *r);
+}
+
+int db_athlete_get_id(struct sd_db *db, long long id, struct db_athlete *out, struct sd_err *e)
+{
+	sqlite3_stmt *st = NULL;
+	int rc;
+
+	if (dbi_prepare(db, "SELECT " ATHLETE_COLS " FROM athletes WHERE id = ?1", &st, e))
+		return -1;
+	sqlite3_bind_int64(st, 1, id);
+	rc = dbi_one(db, st, "read athletes", collect_athlete, out, e);
+	if (rc == 0)
+		sd_fail(e, "the athlete is no longer in the database");
+	return rc > 0 ? 0 : -1;
+}
+
 int db_athlete_refs(struct sd_db *db, long long id, int *nblocks, int *ntests, struct sd_err *e)
 {
 	long long b, t;

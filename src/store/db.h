@@ -123,6 +123,27 @@ int db_athlete_get(struct sd_db *db, const char *name, struct db_athlete *out, s
 int db_athlete_update(struct sd_db *db, const struct db_athlete *a, struct sd_err *e);
 /* All athletes by name; *out is malloc'd (free it), *n set. */
 int db_athlete_list(struct sd_db *db, struct db_athlete **out, int *n, struct sd_err *e);
+/* The roster in compact form, for lists of many athletes: per athlete its id, status, units,
+ * name, the name folded to lowercase (for searching) and the first note_max bytes of its notes
+ * (0: all of them), in one string pool. 100,000 athletes take a few MB, not 113. */
+struct db_roster_row {
+	long long id;
+	const char *name, *key, *notes;
+	unsigned char trained, units_lb;
+	int nblocks, ntests;        /* with_counts only */
+	char created[11];           /* YYYY-MM-DD, UTC */
+};
+struct db_roster {
+	struct db_roster_row *v;
+	int n;
+	char *pool;
+	size_t used, cap;
+};
+int db_roster_load(struct sd_db *db, int note_max, int with_counts, struct db_roster *r,
+		   struct sd_err *e);
+void db_roster_free(struct db_roster *r);
+/* Finds by id (full record, notes included). */
+int db_athlete_get_id(struct sd_db *db, long long id, struct db_athlete *out, struct sd_err *e);
 /* Blocks and tests that reference the athlete. */
 int db_athlete_refs(struct sd_db *db, long long id, int *nblocks, int *ntests, struct sd_err *e);
 /* Removes the athlete; with cascade also its blocks and tests, else refuses while they exist. */

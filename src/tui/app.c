@@ -451,6 +451,17 @@ int tui_bench_open(struct sd_ctx *ctx, const char *term, int w, int h, struct tu
 	return 0;
 }
 
+void tui_bench_roster(struct tui_app *a)
+{
+	tui_nav_reset(&a->st.nav, TUI_ROSTER);
+	screens[TUI_ROSTER]->init(a);
+}
+
+void tui_bench_key(struct tui_app *a, int ch)
+{
+	handle_key(a, ch);
+}
+
 int tui_bench_show(struct tui_app *a, int curve, const char *template_name, struct sd_err *e)
 {
 	long long id = 0;

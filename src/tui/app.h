@@ -29,6 +29,9 @@ struct tui_bind {
 	const char *what;
 };
 
+/* Bytes of an athlete's notes the roster reads: enough for a 250-column terminal. */
+#define TUI_NOTE_SHOWN 200
+
 struct tui_app;
 
 struct tui_screen {
@@ -86,10 +89,12 @@ struct tui_app {
 	struct sd_ctx *ctx;
 	struct tui_state st;
 
-	struct db_athlete *athletes;     /* all, by name */
+	struct db_roster roster;         /* every athlete, compact (store/db.h), read once */
+	const struct db_roster_row *athletes;  /* roster.v: all, by name */
 	int nathletes;
 	int *match;                      /* roster row -> index into athletes */
 	int nmatch;
+	char matched[TUI_FILTER_MAX];    /* the search `match` was computed for */
 	const char **athlete_names;      /* choices for the block form */
 
 	struct db_program *progs;        /* stored templates, without source */

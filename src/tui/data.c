@@ -1,5 +1,6 @@
 /* What the views show, read from the store and computed by the same functions the commands
  * use: audit_run for doses, cmd/respdata.c (as `setdose response`) for the personal response. */
+#include <ctype.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
@@ -61,28 +62,46 @@ void tui_context_text(const struct tui_app *a, char *buf, size_t n)
 			 curve_beyond_names(beyond, names, sizeof names));
 }
 
+/* The search runs over the roster's folded names (a lowercase copy made once at load). When
+ * the text only grew, the names that matched before are the only candidates, so each further
+ * keystroke looks at fewer names. */
 void tui_filter_roster(struct tui_app *a)
 {
-	int k = 0;
-	for (int i = 0; i < a->nathletes; i++)
-		if (tui_filter_match(&a->st.search, a->athletes[i].name))
-			a->match[k++] = i;
+	char q[TUI_FILTER_MAX];
+	int k = 0, narrow;
+
+	for (int i = 0; i <= a->st.search.len; i++)
+		q[i] = (char)tolower((unsigned char)a->st.search.text[i]);
+	narrow = a->matched[0] && a->nmatch >= 0 && !strncmp(q, a->matched, strlen(a->matched));
+	if (narrow) {
+		for (int i = 0; i < a->nmatch; i++)
+			if (strstr(a->athletes[a->match[i]].key, q))
+				a->match[k++] = a->match[i];
+	} else {
+		for (int i = 0; i < a->nathletes; i++)
+			if (!q[0] || strstr(a->athletes[i].key, q))
+				a->match[k++] = i;
+	}
 	a->nmatch = k;
+	snprintf(a->matched, sizeof a->matched, "%s", q);
 	tui_list_count(&a->st.roster, k);
 }
 
 int tui_load_athletes(struct tui_app *a, struct sd_err *e)
 {
-	struct db_athlete *v = NULL;
-	int n = 0;
+	struct db_roster r;
+	int n;
 
-	if (db_athlete_list(a->ctx->db, &v, &n, e))
+	/* Notes only as far as the roster shows them; the athlete page reads the whole record. */
+	if (db_roster_load(a->ctx->db, TUI_NOTE_SHOWN, 0, &r, e))
 		return -1;
-	free(a->athletes);
+	db_roster_free(&a->roster);
 	free(a->match);
 	free(a->athlete_names);
-	a->athletes = v;
-	a->nathletes = n;
+	a->roster = r;
+	a->athletes = r.v;
+	a->nathletes = n = r.n;
+	a->matched[0] = '\0';
 	a->match = malloc((size_t)(n ? n : 1) * sizeof *a->match);
 	a->athlete_names = malloc((size_t)(n ? n : 1) * sizeof *a->athlete_names);
 	if (!a->match || !a->athlete_names) {
@@ -90,7 +109,7 @@ int tui_load_athletes(struct tui_app *a, struct sd_err *e)
 		return sd_fail(e, "out of memory");
 	}
 	for (int i = 0; i < n; i++)
-		a->athlete_names[i] = v[i].name;
+		a->athlete_names[i] = r.v[i].name;
 	tui_filter_roster(a);
 	return 0;
 }
@@ -234,7 +253,8 @@ int tui_load_athlete(struct tui_app *a, long long id, struct sd_err *e)
 	free(a->blocks);
 	free(a->tests);
 	free(a->row_ok);
-	a->cur = a->athletes[found];
+	if (db_athlete_get_id(a->ctx->db, id, &a->cur, e))
+		goto fail;
 	a->have_athlete = 1;
 	a->blocks = b;
 	a->nblocks = nb;
@@ -339,7 +359,7 @@ int tui_subject_template(struct tui_app *a, struct tui_subject *s, long long pro
 
 void tui_data_free(struct tui_app *a)
 {
-	free(a->athletes);
+	db_roster_free(&a->roster);
 	free(a->match);
 	free(a->athlete_names);
 	db_program_list_free(a->progs, a->nprogs);

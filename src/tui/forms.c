@@ -174,7 +174,7 @@ static int save_athlete(struct tui_app *a, struct sd_err *e)
 static int save_block(struct tui_app *a, struct sd_err *e)
 {
 	const struct tui_form *f = &a->st.form;
-	const struct db_athlete *at;
+	struct db_athlete athlete, *at = &athlete;
 	struct db_program p;
 	char start[DB_DATE_LEN];
 	long long weeks = 0, id;
@@ -182,7 +182,8 @@ static int save_block(struct tui_app *a, struct sd_err *e)
 
 	if (!a->nathletes)
 		return sd_fail(e, "no athletes: add one on the roster first"), FB_ATHLETE;
-	at = &a->athletes[f->field[FB_ATHLETE].choice];
+	if (db_athlete_get_id(a->ctx->db, a->athletes[f->field[FB_ATHLETE].choice].id, at, e))
+		return FB_ATHLETE;
 	if (app_date("start date", tui_form_value(f, FB_START), start, e))
 		return FB_START;
 	if (tui_form_value(f, FB_WEEKS)[0] &&

@@ -27,7 +27,7 @@ static const struct tui_bind keys[] = {
 	{ { 0 }, 0, NULL, NULL },
 };
 
-static const struct db_athlete *selected(const struct tui_app *a)
+static const struct db_roster_row *selected(const struct tui_app *a)
 {
 	if (!a->nmatch)
 		return NULL;
@@ -38,7 +38,8 @@ static void init(struct tui_app *a)
 {
 	struct sd_err e;
 	sd_err_clear(&e);
-	if (tui_load_athletes(a, &e))
+	/* Read once at start and after each write (tui_reload), not on every visit. */
+	if (!a->athletes && tui_load_athletes(a, &e))
 		tui_say(a, 1, "%s", e.msg);
 }
 
@@ -65,7 +66,7 @@ static void draw(struct tui_app *a)
 	tui_list_fit(&a->st.roster, rows > 1 ? rows : 1);
 	for (int r = 0; r < a->st.roster.rows && a->st.roster.top + r < a->nmatch; r++) {
 		int i = a->st.roster.top + r;
-		const struct db_athlete *at = &a->athletes[a->match[i]];
+		const struct db_roster_row *at = &a->athletes[a->match[i]];
 		int sel = i == a->st.roster.sel;
 		enum tui_role role = sel ? TR_SEL : TR_PLAIN;
 		if (sel)
@@ -86,7 +87,7 @@ static void draw(struct tui_app *a)
 
 static void open_selected(struct tui_app *a)
 {
-	const struct db_athlete *at = selected(a);
+	const struct db_roster_row *at = selected(a);
 	struct sd_err e;
 
 	if (!at)
@@ -99,9 +100,22 @@ static void open_selected(struct tui_app *a)
 	tui_open(a, TUI_ATHLETE);
 }
 
+/* The edit form needs the whole record (notes in full). */
+static void edit_selected(struct tui_app *a)
+{
+	struct db_athlete full;
+	struct sd_err e;
+
+	sd_err_clear(&e);
+	if (db_athlete_get_id(a->ctx->db, selected(a)->id, &full, &e))
+		tui_say(a, 1, "%s", e.msg);
+	else
+		tui_form_open_athlete(a, &full);
+}
+
 static void ask_remove(struct tui_app *a)
 {
-	const struct db_athlete *at = selected(a);
+	const struct db_roster_row *at = selected(a);
 	struct sd_err e;
 	char q[160];
 	int nb = 0, nt = 0;
@@ -150,7 +164,7 @@ static int key(struct tui_app *a, int ch)
 		return 1;
 	case K_EDIT:
 		if (selected(a))
-			tui_form_open_athlete(a, selected(a));
+			edit_selected(a);
 		return 1;
 	case K_REMOVE:
 		ask_remove(a);

@@ -22,6 +22,10 @@ int tui_bench_open(struct sd_ctx *ctx, const char *term, int w, int h, struct tu
 		   struct sd_err *e);
 /* Shows the dose view (curve == 0) or the curve view (curve != 0) of a stored template. */
 int tui_bench_show(struct tui_app *a, int curve, const char *template_name, struct sd_err *e);
+/* Shows the roster, as at start-up. */
+void tui_bench_roster(struct tui_app *a);
+/* Handles one key as if typed. */
+void tui_bench_key(struct tui_app *a, int ch);
 /* One full redraw: every cell repainted and written out, not only the changes. */
 void tui_bench_draw(struct tui_app *a);
 void tui_bench_close(struct tui_app *a);
