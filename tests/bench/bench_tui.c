@@ -14,6 +14,7 @@
 #include "io/program_io.h"
 #include "store/db.h"
 #include "tui/tui.h"
+#include "bench_tuictx.h"
 
 #define W 200
 #define H 60
@@ -23,13 +24,6 @@ static int cmp(const void *a, const void *b)
 {
 	double x = *(const double *)a, y = *(const double *)b;
 	return x < y ? -1 : x > y;
-}
-
-static double now_ms(void)
-{
-	struct timespec t;
-	clock_gettime(CLOCK_MONOTONIC, &t);
-	return t.tv_sec * 1e3 + t.tv_nsec / 1e6;
 }
 
 /* Times n full redraws of one view; prints median, mean and slowest. */
@@ -68,18 +62,8 @@ int main(int argc, char **argv)
 		fprintf(stderr, "usage: bench_tui N DATADIR\n");
 		return 2;
 	}
-	if (!setlocale(LC_CTYPE, "C.UTF-8"))
-		setlocale(LC_CTYPE, "");
-	memset(&ctx, 0, sizeof ctx);
-	sd_err_clear(&e);
-	ctx.out = stdout;
-	ctx.opt.level = 0.95;
-	ctx.opt.max_rir = 4;
-	ctx.opt.color = 1;
-	snprintf(ctx.datadir, sizeof ctx.datadir, "%s", argv[2]);
-	snprintf(path, sizeof path, "%s/strength.ini", argv[2]);
-	if (!(t = calloc((size_t)n, sizeof *t)) || profile_load(path, &ctx.profile, &e) ||
-	    library_load_all(argv[2], NULL, &ctx.lib, &e) || db_open(":memory:", &ctx.db, &e))
+	if (!(t = calloc((size_t)n, sizeof *t)) || bench_ctx(&ctx, argv[2], &e) ||
+	    db_open(":memory:", &ctx.db, &e))
 		goto done;
 	snprintf(path, sizeof path, "%s/demo-upperlower4.ini", argv[2]);
 	if (program_slurp(path, &text, &len, &e) ||
