@@ -5,6 +5,7 @@
 
 #include "../core/audit.h"
 #include "../io/audit_out.h"
+#include "../io/pathlist.h"
 #include "../io/program_io.h"
 #include "../io/table.h"
 #include "audit_all.h"
@@ -46,8 +47,7 @@ static int one(struct sd_ctx *ctx, const struct audit_args *a, const char *path,
 	if (ctx->opt.format == SD_FMT_JSON)
 		rc = aout_json_item(ctx->out, &in, first);
 	else if (a->summary) {
-		aout_sum_rows(so, &in);
-		rc = 0;
+		rc = aout_sum_rows(so, &in);
 	} else if (csv)
 		rc = aout_muscle_rows(csv, &in, 1);
 	else {
@@ -69,20 +69,34 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	struct audit_args a = { 0, 0, SD_SESSION_CAP };
 	struct sd_table *csv = NULL;
 	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7 };
-	int rc = 0, all, firstarg = 1;   /* the programs: argv[1..] once the options are read */
+	struct pathlist list = { NULL, 0, NULL };
+	char **files;
+	int rc = 0, nfiles;
 
 	if ((argc = opt_parse("audit", opts, OPT_N(opts), &a, argc, argv, e)) < 0)
 		return -1;
-	all = a.all;
-	if (all && firstarg < argc)
+	files = argv + 1;
+	nfiles = argc - 1;
+	if (a.all && nfiles)
 		return sd_usage(e, "audit --all takes no PROGRAM files (it audits the open blocks)");
-	if (all)
+	if (a.all)
 		return cmd_audit_all(ctx, a.cap, e);
-	if (firstarg >= argc)
+	/* "-" alone: the programs' file names, one a line, from standard input. */
+	if (nfiles == 1 && !strcmp(files[0], "-")) {
+		if (paths_read(stdin, "standard input", &list, e))
+			return -1;
+		files = list.v;
+		nfiles = list.n;
+		if (!nfiles)
+			return sd_usage(e, "audit -: standard input named no PROGRAM file");
+	}
+	if (!nfiles) {
+		paths_free(&list);
 		return sd_usage(e, "audit needs at least one PROGRAM file (usage: setdose %s)",
 				cmd_audit.usage);
-	for (int i = firstarg; i < argc; i++) {
-		int w = (int)strlen(argv[i]);
+	}
+	for (int i = 0; i < nfiles; i++) {
+		int w = (int)strlen(files[i]);
 		if (w > so.wp)
 			so.wp = w;
 	}
@@ -91,9 +105,9 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	else if (a.summary)
 		aout_sum_head(&so);
 	else if (ctx->opt.format == SD_FMT_CSV && !(csv = aout_muscle_table(1)))
-		return sd_fail(e, "out of memory");
-	for (int i = firstarg; i < argc && !rc; i++)
-		rc = one(ctx, &a, argv[i], csv, &so, i == firstarg, e);
+		rc = sd_fail(e, "out of memory");
+	for (int i = 0; i < nfiles && !rc; i++)
+		rc = one(ctx, &a, files[i], csv, &so, i == 0, e);
 	if (!rc) {
 		if (ctx->opt.format == SD_FMT_JSON)
 			aout_json_end(ctx->out);
@@ -103,6 +117,7 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 			cmd_print_caution(ctx);
 	}
 	tbl_free(csv);
+	paths_free(&list);
 	return rc;
 }
 
@@ -111,7 +126,8 @@ const struct sd_cmd cmd_audit = {
 	.summary = "weekly fractional sets per muscle of programs, placed on the curve",
 	.usage = "audit [--summary] [--session-cap SETS] PROGRAM...\n"
 		 "       setdose audit --all [--session-cap SETS]\n"
-		 "  PROGRAM         an INI or CSV program file (see 'man setdose', PROGRAM FILES)",
+		 "  PROGRAM         an INI or CSV program file (see 'man setdose', PROGRAM FILES);\n"
+		 "                  '-' alone reads the file names, one a line, from standard input",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_audit,
 	.opts = opts,

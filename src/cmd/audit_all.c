@@ -16,6 +16,7 @@ struct entry {
 	char name[DB_PROGNAME_MAX];
 	struct sd_program prog;
 	struct sd_audit au;
+	struct sd_sumrows rows;      /* the summary rows, formatted at first use */
 };
 
 struct walk {
@@ -36,6 +37,7 @@ static void cache_clear(struct walk *w)
 	for (int i = 0; i < w->n; i++) {
 		audit_free(&w->cache[i].au);
 		prog_free(&w->cache[i].prog);
+		aout_sum_free(&w->cache[i].rows);
 	}
 	w->n = 0;
 }
@@ -85,7 +87,9 @@ static int one_block(const struct db_block *b, void *arg)
 		if (aout_json_item(w->ctx->out, &in, w->first))
 			return sd_fail(w->e, "out of memory");
 	} else {
-		aout_sum_rows(&w->so, &in);
+		if (!x->rows.text && aout_sum_format(&w->so, &in, &x->rows))
+			return sd_fail(w->e, "out of memory");
+		aout_sum_print(&w->so, &in, &x->rows);
 	}
 	w->first = 0;
 	return 0;

@@ -40,15 +40,41 @@ static double held(const struct sd_profile *p, const char *var, double v)
 	return v < r->lo ? r->lo : v > r->hi ? r->hi : v;
 }
 
+/* Term k's moderator (into buf when the profile is not indexed) and whether it multiplies the
+ * dose. */
+static const char *term_var(const struct sd_profile *p, int k, char *buf, int *by_dose)
+{
+	if (p->indexed) {
+		*by_dose = p->tdose[k];
+		return p->tvar[k];
+	}
+	*by_dose = profile_term_var(p->term[k], buf, 32);
+	return buf;
+}
+
 int curve_design(const struct sd_profile *p, const struct sd_covars *c, double x, double *z)
 {
 	double f = form_f(p->form, x);
 
 	z[0] = 1.0;
 	z[1] = f;
-	for (int k = 2; k < p->nterms; k++) {
-		char var[32];
-		int by_dose = profile_term_var(p->term[k], var, sizeof var);
+	for (int k = 2; k < p->nterms && p->indexed; k++) {
+		/* The indexed profile: no names looked up per point. */
+		const struct sd_range *r = p->trange[k] >= 0 ? &p->range[(int)p->trange[k]] : NULL;
+		double v;
+		if (p->tcov[k] < 0) {
+			z[k] = 0;
+			continue;
+		}
+		v = p->tcov[k] == 0 ? c->weeks : c->trained;
+		if (r)
+			v = v < r->lo ? r->lo : v > r->hi ? r->hi : v;
+		z[k] = (v - p->centre[k]) * (p->tdose[k] ? f : 1.0);
+	}
+	for (int k = 2; k < p->nterms && !p->indexed; k++) {
+		char buf[32];
+		int by_dose;
+		const char *var = term_var(p, k, buf, &by_dose);
 		double v;
 		if (!var_value(c, var, &v)) {
 			z[k] = 0;   /* a moderator the athlete context does not carry sits at its centre */
@@ -118,8 +144,10 @@ double curve_dose_coef(const struct sd_profile *p, const struct sd_covars *c)
 	double x = 1.0, f = form_f(p->form, x);
 	curve_design(p, c, x, z);
 	for (int k = 2; k < p->nterms; k++) {
-		char var[32];
-		if (profile_term_var(p->term[k], var, sizeof var))
+		char buf[32];
+		int by_dose;
+		term_var(p, k, buf, &by_dose);
+		if (by_dose)
 			b += p->beta[k] * z[k] / f;
 	}
 	return b;

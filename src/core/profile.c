@@ -73,10 +73,13 @@ int profile_term(const struct sd_profile *p, const char *name)
 int profile_term_var(const char *term, char *var, size_t n)
 {
 	const char *colon = strchr(term, ':');
-	size_t len = colon && !strcmp(colon, ":dose") ? (size_t)(colon - term) : strlen(term);
+	size_t all = strlen(term), len = colon && !strcmp(colon, ":dose") ? (size_t)(colon - term) : all;
+	size_t cut = len < n ? len : n - 1;
 
-	snprintf(var, n, "%.*s", (int)len, term);
-	return len < strlen(term);
+	/* Called for every term of every curve point: a copy, not a formatted print. */
+	memcpy(var, term, cut);
+	var[cut] = '\0';
+	return len < all;
 }
 
 const struct sd_range *profile_range(const struct sd_profile *p, const char *var)
@@ -267,4 +270,16 @@ void profile_oneline(const struct sd_profile *p, char *buf, size_t n)
 {
 	snprintf(buf, n, "profile '%s' (%s): %s", p->name, basis_name(p->basis),
 		 p->summary[0] ? p->summary : "no summary given");
+}
+
+void profile_index(struct sd_profile *p)
+{
+	for (int k = 0; k < p->nterms; k++) {
+		const struct sd_range *r;
+		p->tdose[k] = (unsigned char)profile_term_var(p->term[k], p->tvar[k], sizeof p->tvar[k]);
+		p->tcov[k] = !strcmp(p->tvar[k], "weeks") ? 0 : !strcmp(p->tvar[k], "trained") ? 1 : -1;
+		r = profile_range(p, p->tvar[k]);
+		p->trange[k] = r ? (signed char)(r - p->range) : -1;
+	}
+	p->indexed = 1;
 }

@@ -46,6 +46,13 @@ struct sd_profile {
 	double beta[SD_MAX_TERMS];
 	double centre[SD_MAX_TERMS];
 	double vcov[SD_MAX_TERMS * SD_MAX_TERMS];  /* row-major nterms x nterms */
+	/* Filled by profile_index: each term's moderator and whether it multiplies the dose, so
+	 * the curve does not take term names apart at every point it evaluates. */
+	char tvar[SD_MAX_TERMS][32];
+	unsigned char tdose[SD_MAX_TERMS];
+	signed char tcov[SD_MAX_TERMS];      /* the covariate: 0 weeks, 1 trained, -1 neither */
+	signed char trange[SD_MAX_TERMS];    /* its evidence range in range[], or -1 */
+	int indexed;
 	int nranges;
 	struct sd_range range[SD_MAX_VARS];
 	double tau2;               /* between-study variance (intercept) */
@@ -88,6 +95,8 @@ int profile_check_named(const char *key, const char *what, double v, struct sd_e
 /* Checks the profile is usable: every field in its range, terms, symmetric positive-definite
  * covariance, valid random-slope variances, a range for every moderator variable. */
 int profile_validate(const struct sd_profile *p, struct sd_err *e);
+/* Fills tvar, tdose and indexed from the terms (after the last change to them). */
+void profile_index(struct sd_profile *p);
 /* One line saying what the profile is: "profile 'NAME' (calibrated): SUMMARY". */
 void profile_oneline(const struct sd_profile *p, char *buf, size_t n);
 

@@ -1,4 +1,5 @@
 #include "audit_out.h"
+#include "numfmt.h"
 
 #include <math.h>
 #include <stdlib.h>
@@ -185,38 +186,162 @@ void aout_sum_head(const struct sd_sumout *o)
 		"athlete_hi", "+1set%", "+1set_lo", "+1set_hi", "zone");
 }
 
-void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
+/* The rows' text, built in memory without stdio: this is the inner loop of a batch audit. */
+struct sbuf {
+	char *p;
+	size_t n, cap;
+	int oom;
+};
+
+static char *room(struct sbuf *b, size_t k)
+{
+	if (b->n + k + 1 > b->cap) {
+		size_t cap = b->cap ? b->cap : 4096;
+		char *p;
+		while (b->n + k + 1 > cap)
+			cap *= 2;
+		if (!(p = realloc(b->p, cap))) {
+			b->oom = 1;
+			return NULL;
+		}
+		b->p = p;
+		b->cap = cap;
+	}
+	return b->p + b->n;
+}
+
+static void put(struct sbuf *b, const char *s)
+{
+	size_t k = strlen(s);
+	char *d = room(b, k);
+	if (d) {
+		memcpy(d, s, k + 1);
+		b->n += k;
+	}
+}
+
+/* s left-aligned in width columns, as "%-*s" (bytes, like printf). */
+static void put_left(struct sbuf *b, const char *s, int width)
+{
+	int k = (int)strlen(s);
+	put(b, s);
+	for (; k < width; k++)
+		put(b, " ");
+}
+
+/* A number as "%*.*f" writes it, without the general formatter (numfmt.h); sep before it. */
+static void put_num(struct sbuf *b, const char *sep, double v, int width, int dec)
+{
+	char num[48];
+	nf_pad(num, v, width, dec);
+	put(b, sep);
+	put(b, num);
+}
+
+static void put_csv(struct sbuf *b, const char *s)
+{
+	if (!strpbrk(s, ",\"\n\r")) {
+		put(b, s);
+		return;
+	}
+	put(b, "\"");
+	for (; *s; s++)
+		put(b, *s == '"' ? "\"\"" : (char[2]){ *s, '\0' });
+	put(b, "\"");
+}
+
+/* Every row's text after the athlete column (and before CSV's overdue_days), one row a line:
+ * it depends only on the audit, so audit --all formats it once per template, status and
+ * weeks and prints it for each of their athletes. */
+int aout_sum_format(const struct sd_sumout *o, const struct sd_audit_info *in,
+		    struct sd_sumrows *r)
 {
 	const struct sd_audit *a = in->audit;
+	struct sbuf b = { NULL, 0, 0, 0 };
 	char beyond[32];
+
 	for (int m = 0; m < SD_NMUSCLES; m++) {
-		const struct sd_audit_row *r = &a->row[m];
+		const struct sd_audit_row *x = &a->row[m];
 		if (o->csv) {
-			if (o->with_athlete) {
-				tbl_csv_field(o->f, in->athlete ? in->athlete : "");
-				fputc(',', o->f);
-			}
-			tbl_csv_field(o->f, in->label);
-			fprintf(o->f, ",%s,%.2f,%.3f,%.3f,%.3f,%.3f,%.3f,%.4f,%.4f,%.4f,%s,%s",
-				muscle_name(m), r->dose.fractional, pct(r->pt.y), pct(r->pt.ci_lo),
-				pct(r->pt.ci_hi), pct(r->pt.ath_lo), pct(r->pt.ath_hi), r->plus1.pct,
-				r->plus1.lo, r->plus1.hi, zone_name(r->zone),
-				curve_beyond_names(r->pt.beyond, beyond, sizeof beyond));
-			if (o->with_athlete)
-				fprintf(o->f, ",%d", in->overdue_days);
-			fputc('\n', o->f);
+			put_csv(&b, in->label);
+			put(&b, ",");
+			put(&b, muscle_name(m));
+			put_num(&b, ",", x->dose.fractional, 0, 2);
+			put_num(&b, ",", pct(x->pt.y), 0, 3);
+			put_num(&b, ",", pct(x->pt.ci_lo), 0, 3);
+			put_num(&b, ",", pct(x->pt.ci_hi), 0, 3);
+			put_num(&b, ",", pct(x->pt.ath_lo), 0, 3);
+			put_num(&b, ",", pct(x->pt.ath_hi), 0, 3);
+			put_num(&b, ",", x->plus1.pct, 0, 4);
+			put_num(&b, ",", x->plus1.lo, 0, 4);
+			put_num(&b, ",", x->plus1.hi, 0, 4);
+			put(&b, ",");
+			put(&b, zone_name(x->zone));
+			put(&b, ",");
+			put(&b, curve_beyond_names(x->pt.beyond, beyond, sizeof beyond));
+			put(&b, "\n");
 			continue;
 		}
-		if (o->with_athlete)
-			fprintf(o->f, "%-*s  ", o->wa, in->athlete ? in->athlete : "");
-		fprintf(o->f, "%-*s  %-11s  %10.1f  %6.1f  %8.1f  %8.1f  %10.1f  %10.1f  %6.2f  %8.2f  "
-			"%8.2f  %s%s%s\n", o->wp, in->label, muscle_name(m), r->dose.fractional,
-			pct(r->pt.y), pct(r->pt.ci_lo), pct(r->pt.ci_hi), pct(r->pt.ath_lo),
-			pct(r->pt.ath_hi), r->plus1.pct, r->plus1.lo, r->plus1.hi, zone_name(r->zone),
-			r->pt.beyond & ~SD_BEYOND_DOSE ? ", beyond: " : "",
-			r->pt.beyond & ~SD_BEYOND_DOSE ? curve_beyond_names(r->pt.beyond & ~SD_BEYOND_DOSE,
-							 beyond, sizeof beyond) : "");
+		put_left(&b, in->label, o->wp);
+		put(&b, "  ");
+		put_left(&b, muscle_name(m), 11);
+		put_num(&b, "  ", x->dose.fractional, 10, 1);
+		put_num(&b, "  ", pct(x->pt.y), 6, 1);
+		put_num(&b, "  ", pct(x->pt.ci_lo), 8, 1);
+		put_num(&b, "  ", pct(x->pt.ci_hi), 8, 1);
+		put_num(&b, "  ", pct(x->pt.ath_lo), 10, 1);
+		put_num(&b, "  ", pct(x->pt.ath_hi), 10, 1);
+		put_num(&b, "  ", x->plus1.pct, 6, 2);
+		put_num(&b, "  ", x->plus1.lo, 8, 2);
+		put_num(&b, "  ", x->plus1.hi, 8, 2);
+		put(&b, "  ");
+		put(&b, zone_name(x->zone));
+		if (x->pt.beyond & ~SD_BEYOND_DOSE) {
+			put(&b, ", beyond: ");
+			put(&b, curve_beyond_names(x->pt.beyond & ~SD_BEYOND_DOSE, beyond, sizeof beyond));
+		}
+		put(&b, "\n");
 	}
+	if (b.oom || !b.p) {
+		free(b.p);
+		return -1;
+	}
+	r->text = b.p;
+	return 0;
+}
+
+void aout_sum_print(const struct sd_sumout *o, const struct sd_audit_info *in,
+		    const struct sd_sumrows *r)
+{
+	for (const char *line = r->text, *nl; (nl = strchr(line, '\n')); line = nl + 1) {
+		if (o->with_athlete && o->csv) {
+			tbl_csv_field(o->f, in->athlete ? in->athlete : "");
+			fputc(',', o->f);
+		} else if (o->with_athlete) {
+			fprintf(o->f, "%-*s  ", o->wa, in->athlete ? in->athlete : "");
+		}
+		fwrite(line, 1, (size_t)(nl - line), o->f);
+		if (o->with_athlete && o->csv)
+			fprintf(o->f, ",%d", in->overdue_days);
+		fputc('\n', o->f);
+	}
+}
+
+void aout_sum_free(struct sd_sumrows *r)
+{
+	free(r->text);
+	r->text = NULL;
+}
+
+int aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
+{
+	struct sd_sumrows r = { NULL };
+
+	if (aout_sum_format(o, in, &r))
+		return -1;
+	aout_sum_print(o, in, &r);
+	aout_sum_free(&r);
+	return 0;
 }
 
 static cJSON *muscle_json(const struct sd_audit *a, int m)

@@ -32,7 +32,18 @@ struct sd_sumout {
 	int wa, wp;                 /* athlete and program column widths (table only) */
 };
 void aout_sum_head(const struct sd_sumout *o);
-void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in);
+/* One audit's summary rows; 0, or -1 when out of memory. */
+int aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in);
+/* The same in two steps, for printing one audit's rows for many athletes: the rows' text after
+ * the athlete column, formatted once (free with aout_sum_free), then printed per athlete. */
+struct sd_sumrows {
+	char *text;
+};
+int aout_sum_format(const struct sd_sumout *o, const struct sd_audit_info *in,
+		    struct sd_sumrows *r);
+void aout_sum_print(const struct sd_sumout *o, const struct sd_audit_info *in,
+		    const struct sd_sumrows *r);
+void aout_sum_free(struct sd_sumrows *r);
 
 /* JSON, streamed: begin prints '{"audits": [', item one audit object, end the caution and the
  * closing brackets. */

@@ -425,6 +425,7 @@ int profile_load(const char *path, struct sd_profile *p, struct sd_err *e)
 		sd_wrap(e, "cannot read profile '%s'", path);
 		goto out;
 	}
+	profile_index(p);
 	rc = 0;
 out:
 	free(buf);
