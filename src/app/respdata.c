@@ -12,21 +12,26 @@ static long day(const char *date)
 	return d;
 }
 
-/* The test of `lift` nearest to `target` within the window; on a tie the one farther outside
- * the block (earlier for the start, later for the end), so the pair spans the whole block. */
-static const struct db_test *nearest(const struct db_test *t, int n, const char *lift,
+/* The test nearest to `target` within the window among t[lo..hi), one lift's tests in date
+ * order with their day numbers in days[] (parsed once per athlete); on a tie the one farther
+ * outside the block (earlier for the start, later for the end), so the pair spans the whole
+ * block. A binary search finds the window's first test. */
+static const struct db_test *nearest(const struct db_test *t, const long *days, int lo, int hi,
 				     long target, int window, int later)
 {
 	const struct db_test *best = NULL;
 	long bestd = 0;
+	int a = lo, b = hi;
 
-	for (int i = 0; i < n; i++) {
-		long d;
-		if (strcmp(t[i].lift, lift))
-			continue;
-		d = labs(day(t[i].date) - target);
-		if (d > window)
-			continue;
+	while (a < b) {
+		int mid = a + (b - a) / 2;
+		if (days[mid] < target - window)
+			a = mid + 1;
+		else
+			b = mid;
+	}
+	for (int i = a; i < hi && days[i] <= target + window; i++) {
+		long d = labs(days[i] - target);
 		if (!best || d < bestd || (d == bestd && (later ? strcmp(t[i].date, best->date) > 0
 							     : strcmp(t[i].date, best->date) < 0))) {
 			best = &t[i];
@@ -52,6 +57,68 @@ static double lift_dose(const struct sd_ctx *ctx, const struct sd_audit *au, con
 	return nm ? sum / nm : -1;
 }
 
+/* Blocks share few templates, statuses and lengths: each (template, status, weeks) is parsed
+ * and audited once for the whole roster, not once per block. */
+#define AUDITS_MAX 64
+
+struct audits {
+	struct {
+		long long program_id;
+		int trained;
+		double weeks;
+		struct sd_program prog;
+		struct sd_audit au;
+	} *x;
+	int n;
+};
+
+static void audits_clear(struct audits *c)
+{
+	for (int i = 0; i < c->n; i++) {
+		audit_free(&c->x[i].au);
+		prog_free(&c->x[i].prog);
+	}
+	c->n = 0;
+}
+
+static const struct sd_audit *audit_of(struct sd_ctx *ctx, struct audits *c,
+				       const struct db_block *b, double weeks, struct sd_err *e)
+{
+	struct db_program p;
+	int k;
+
+	for (int i = 0; i < c->n; i++)
+		if (c->x[i].program_id == b->program_id && c->x[i].trained == b->trained &&
+		    c->x[i].weeks == weeks)
+			return &c->x[i].au;
+	if (!c->x && !(c->x = calloc(AUDITS_MAX, sizeof *c->x))) {
+		sd_fail(e, "out of memory");
+		return NULL;
+	}
+	if (c->n == AUDITS_MAX)
+		audits_clear(c);
+	k = c->n;
+	if (db_program_get_id(ctx->db, b->program_id, &p, e))
+		return NULL;
+	if (app_block_audit(ctx, b, &p, SD_SESSION_CAP, &c->x[k].prog, &c->x[k].au, e)) {
+		db_program_free(&p);
+		return NULL;
+	}
+	db_program_free(&p);
+	c->x[k].program_id = b->program_id;
+	c->x[k].trained = b->trained;
+	c->x[k].weeks = weeks;
+	c->n++;
+	return &c->x[k].au;
+}
+
+static void audits_free(struct audits *c)
+{
+	audits_clear(c);
+	free(c->x);
+	c->x = NULL;
+}
+
 static int add_row(struct resp_data *rs, const struct resp_row *r, struct sd_err *e)
 {
 	if (rs->n == rs->cap) {
@@ -67,32 +134,31 @@ static int add_row(struct resp_data *rs, const struct resp_row *r, struct sd_err
 }
 
 /* All observations of one completed block (their fit comes once the variances are known). */
-static int block_rows(struct sd_ctx *ctx, int window, const struct resp_opts *ro,
-		      const struct db_block *b, struct resp_data *rs, struct sd_err *e)
+static int block_rows(struct sd_ctx *ctx, struct audits *c, int window,
+		      const struct resp_opts *ro, const struct db_block *b, struct resp_data *rs,
+		      struct sd_err *e)
 {
-	struct db_program p = { 0 };
-	struct sd_program prog = { 0 };
-	struct sd_audit au = { 0 };
 	struct sd_covars cov = { app_block_weeks(b), b->trained };
+	const struct sd_audit *au = audit_of(ctx, c, b, cov.weeks, e);
 	long s = day(b->start), f = day(b->end);
-	int rc = -1, before = rs->n;
+	int before = rs->n;
 
-	if (db_program_get_id(ctx->db, b->program_id, &p, e) ||
-	    app_block_audit(ctx, b, &p, SD_SESSION_CAP, &prog, &au, e))
-		goto done;
+	if (!au)
+		return -1;
 	const struct db_test *t = rs->t;
 	int nt = rs->nt;
 
-	for (int i = 0; i < nt; i++) {
+	for (int i = 0, end; i < nt; i = end) {
 		struct resp_row r;
-		if (i > 0 && !strcmp(t[i].lift, t[i - 1].lift))
-			continue;   /* one row per lift: the list is ordered by lift */
+		/* One row per lift: the list is ordered by lift, then date. */
+		for (end = i + 1; end < nt && !strcmp(t[end].lift, t[i].lift); end++)
+			;
 		memset(&r, 0, sizeof r);
-		r.pre = nearest(t, nt, t[i].lift, s, window, 0);
-		r.post = nearest(t, nt, t[i].lift, f, window, 1);
+		r.pre = nearest(t, rs->day, i, end, s, window, 0);
+		r.post = nearest(t, rs->day, i, end, f, window, 1);
 		if (!r.pre || !r.post || strcmp(r.pre->date, r.post->date) >= 0)
 			continue;
-		r.dose = lift_dose(ctx, &au, t[i].lift);
+		r.dose = lift_dose(ctx, au, t[i].lift);
 		if (r.dose < 0)
 			continue;   /* a lift no longer in the library, or with no prime mover */
 		r.block = b->id;
@@ -103,16 +169,11 @@ static int block_rows(struct sd_ctx *ctx, int window, const struct resp_opts *ro
 		resp_obs_set(&ctx->profile, &cov, r.dose, log(r.post->e1rm_kg / r.pre->e1rm_kg),
 			     resp_change_var(ro->test_sd, r.pre->reps, r.post->reps), b->id, &r.ob);
 		if (add_row(rs, &r, e))
-			goto done;
+			return -1;
 	}
 	if (rs->n > before)
 		rs->nblocks++;
-	rc = 0;
-done:
-	audit_free(&au);
-	prog_free(&prog);
-	db_program_free(&p);
-	return rc;
+	return 0;
 }
 
 
@@ -130,7 +191,7 @@ int respd_check_opts(const struct resp_opts *o, struct sd_err *e)
 }
 
 /* The rows of one athlete: every completed block's observations. */
-static int athlete_rows(struct sd_ctx *ctx, long long only_block, int window,
+static int athlete_rows(struct sd_ctx *ctx, struct audits *c, long long only_block, int window,
 			const struct resp_opts *ro, struct resp_data *d, struct sd_err *e)
 {
 	int found = 0;
@@ -138,6 +199,11 @@ static int athlete_rows(struct sd_ctx *ctx, long long only_block, int window,
 	if (db_block_list(ctx->db, d->athlete.id, &d->b, &d->nb, e) ||
 	    db_test_list(ctx->db, d->athlete.id, NULL, &d->t, &d->nt, e))
 		return -1;
+	/* Each test's date parsed once, not once per block and lift. */
+	if (!(d->day = malloc((size_t)(d->nt ? d->nt : 1) * sizeof *d->day)))
+		return sd_fail(e, "out of memory");
+	for (int i = 0; i < d->nt; i++)
+		d->day[i] = day(d->t[i].date);
 	for (int i = 0; i < d->nb; i++) {
 		const struct db_block *b = &d->b[i];
 		if (only_block && b->id == only_block) {
@@ -146,7 +212,7 @@ static int athlete_rows(struct sd_ctx *ctx, long long only_block, int window,
 				return sd_fail(e, "block %lld is still open (end it with 'setdose block end "
 					       "%lld')", only_block, only_block);
 		}
-		if (b->end[0] && block_rows(ctx, window, ro, b, d, e))
+		if (b->end[0] && block_rows(ctx, c, window, ro, b, d, e))
 			return -1;
 	}
 	if (only_block && !found)
@@ -192,20 +258,22 @@ static int roster_add(struct roster *r, int athlete, const struct resp_data *d, 
 }
 
 /* Every athlete's observations, for the roster estimate of the variances. */
-static int roster_vars(struct sd_ctx *ctx, int window, const struct resp_opts *ro,
-		       struct resp_vars *vars, struct sd_err *e)
+static int roster_vars(struct sd_ctx *ctx, struct audits *c, int window,
+		       const struct resp_opts *ro, struct resp_vars *vars, struct sd_err *e)
 {
-	struct db_athlete *as = NULL;
+	struct db_roster as;
 	struct roster r = { 0 };
-	int na = 0, rc = -1;
+	int rc = -1;
 
-	if (db_athlete_list(ctx->db, &as, &na, e))
+	/* Ids and names are all the pairing needs: the compact roster, not whole records. */
+	if (db_roster_load(ctx->db, 1, 0, &as, e))
 		return -1;
-	for (int i = 0; i < na; i++) {
+	for (int i = 0; i < as.n; i++) {
 		struct resp_data d;
 		memset(&d, 0, sizeof d);
-		d.athlete = as[i];
-		if (athlete_rows(ctx, 0, window, ro, &d, e) || roster_add(&r, i, &d, e)) {
+		d.athlete.id = as.v[i].id;
+		snprintf(d.athlete.name, sizeof d.athlete.name, "%s", as.v[i].name);
+		if (athlete_rows(ctx, c, 0, window, ro, &d, e) || roster_add(&r, i, &d, e)) {
 			respd_free(&d);
 			goto done;
 		}
@@ -218,7 +286,7 @@ done:
 	free(r.block);
 	free(r.dev);
 	free(r.v);
-	free(as);
+	db_roster_free(&as);
 	return rc;
 }
 
@@ -227,18 +295,19 @@ int respd_load(struct sd_ctx *ctx, const char *athlete, long long only_block, in
 {
 	struct resp_obs *obs = NULL;
 	const struct sd_profile *p = &ctx->profile;
+	struct audits c = { NULL, 0 };
 	int rc = -1;
 
 	memset(d, 0, sizeof *d);
 	if (respd_check_opts(ro, e) || app_athlete_get(ctx->db, athlete, &d->athlete, e))
 		return -1;
-	if (athlete_rows(ctx, only_block, window, ro, d, e))
+	if (athlete_rows(ctx, &c, only_block, window, ro, d, e))
 		goto done;
 	resp_prior_vars(p, ro->prior_sd == RESPD_PRIOR_PROFILE ? p->athlete_var
 			: ro->prior_sd * ro->prior_sd, &d->vars);
 	if (ro->priors_only)
 		snprintf(d->vars.why, sizeof d->vars.why, "asked for (--priors)");
-	else if (roster_vars(ctx, window, ro, &d->vars, e))
+	else if (roster_vars(ctx, &c, window, ro, &d->vars, e))
 		goto done;
 	if (d->n && !(obs = malloc((size_t)d->n * sizeof *obs))) {
 		sd_fail(e, "out of memory");
@@ -251,6 +320,7 @@ int respd_load(struct sd_ctx *ctx, const char *athlete, long long only_block, in
 	rc = resp_personal(p, obs, d->n, &d->vars, ro->level, &d->personal, e);
 done:
 	free(obs);
+	audits_free(&c);
 	if (rc)
 		respd_free(d);
 	return rc;
@@ -260,6 +330,7 @@ void respd_free(struct resp_data *d)
 {
 	free(d->v);
 	free(d->t);
+	free(d->day);
 	free(d->b);
 	memset(d, 0, sizeof *d);
 }

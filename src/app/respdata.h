@@ -41,6 +41,7 @@ struct resp_data {
 	struct db_block *b;
 	int nb;
 	struct db_test *t;
+	long *day;                   /* nt day numbers of the tests' dates */
 	int nt;
 	struct resp_row *v;          /* observations of every completed block */
 	int n, cap, nblocks;         /* nblocks: completed blocks with at least one observation */

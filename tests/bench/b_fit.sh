@@ -19,16 +19,6 @@ DATA=$ROOT/tests/bench/bench_big200_effects.csv
 REFS=$ROOT/tests/data/ref/bench_big200_fits.txt
 ARGS="--effect effect --mods weeks,trained --form reciprocal"
 
-instr() { # TARGET_M CMD... : the instruction count, when BENCH_INSTR=1
-	target=$1; shift
-	[ "${BENCH_INSTR:-0}" = 1 ] || return 0
-	n=$(valgrind --tool=callgrind --callgrind-out-file=/dev/null "$@" 2>&1 >/dev/null |
-		sed -n 's/.*Collected : \([0-9]*\).*/\1/p')
-	awk -v n="$n" -v t="$target" 'BEGIN { if (t == "")
-		printf "    instructions %.1f M\n", n / 1e6
-	else
-		printf "    instructions %.1f M, target <= %s M: %s\n", n / 1e6, t, n <= t * 1e6 ? "met" : "NOT met" }'
-}
 
 one() { # LABEL METAFOR_MS PREFIX [--slopes]
 	label=$1 ref_ms=$2 pre=$3; shift 3

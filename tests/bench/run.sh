@@ -9,6 +9,7 @@ for b in "$ROOT"/tests/bench/b_*.sh; do
 	[ -f "$b" ] || continue
 	echo "== $(basename "$b" .sh)"
 	( cd "$WORK" && HOME="$WORK/home" XDG_CONFIG_HOME="$WORK/config" XDG_DATA_HOME="$WORK/data" \
-	    NO_COLOR=1 sh "$b" ) || echo "bench $(basename "$b") failed"
+	    NO_COLOR=1 sh -c '. "$0/tests/bench/lib.sh" && . "$1"' "$ROOT" "$b" ) ||
+		echo "bench $(basename "$b") failed"
 done
 rm -rf "$WORK"
