@@ -20,3 +20,8 @@ awk 'BEGIN {
 	}
 }'
 "$BENCHBIN/bench_run" 5 "audit --summary of 10,000 programs (1 s, 32 MB)" "$SD" audit --summary progs/*.ini
+# The same summary for the first 1,000 of those programs, their names from standard input:
+# target <= 100 M instructions (with BENCH_INSTR=1).
+ls progs/p0*.ini | head -1000 >list1000.txt
+"$BENCHBIN/bench_run" 5 "audit --summary - of 1,000 programs" sh -c 'exec "$0" audit --summary - <list1000.txt' "$SD"
+instr 100 "$SD" audit --summary - <list1000.txt
