@@ -15,6 +15,7 @@ extern const struct sd_cmd cmd_audit;
 struct audit_args {
 	int summary;
 	double cap;
+	int wide, by_exercise;
 };
 
 static int one(struct sd_ctx *ctx, const struct audit_args *a, const char *path,
@@ -30,14 +31,15 @@ static int one(struct sd_ctx *ctx, const struct audit_args *a, const char *path,
 	struct sd_covars cov = cmd_covars(ctx, prog.weeks);
 	if (audit_run(&prog, &ctx->lib, &ctx->profile, &cov, &o, &au, e))
 		goto out;
-	struct sd_audit_info in = { path, &prog, &ctx->profile, &au, NULL };
+	struct sd_audit_info in = { path, &prog, &ctx->profile, &au, NULL, a->wide, &ctx->lib,
+				    a->by_exercise };
 	if (ctx->opt.format == SD_FMT_JSON)
 		rc = aout_json_item(ctx->out, &in, first);
 	else if (a->summary) {
 		aout_sum_rows(so, &in);
 		rc = 0;
 	} else if (csv)
-		rc = aout_muscle_rows(csv, &in, 1);
+		rc = a->by_exercise ? aout_source_rows(csv, &in) : aout_muscle_rows(csv, &in, 1);
 	else {
 		if (!first)
 			fputc('\n', ctx->out);
@@ -58,9 +60,11 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		{ "summary", no_argument, NULL, 's' },
 		{ "all", no_argument, NULL, 'a' },
 		{ "session-cap", required_argument, NULL, 'c' },
+		{ "wide", no_argument, NULL, 'w' },
+		{ "by-exercise", no_argument, NULL, 'b' },
 		{ NULL, 0, NULL, 0 },
 	};
-	struct audit_args a = { 0, SD_SESSION_CAP };
+	struct audit_args a = { 0, SD_SESSION_CAP, 0, 0 };
 	struct sd_table *csv = NULL;
 	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7 };
 	int c, rc = 0, all = 0;
@@ -75,6 +79,12 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		case 'a':
 			all = 1;
 			break;
+		case 'w':
+			a.wide = 1;
+			break;
+		case 'b':
+			a.by_exercise = 1;
+			break;
 		case 'c':
 			a.cap = strtod(optarg, &end);
 			if (end == optarg || *end || !(a.cap > 0 && a.cap <= 100))
@@ -84,6 +94,8 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 			return sd_usage(e, "usage: setdose %s", cmd_audit.usage);
 		}
 	}
+	if (a.by_exercise && (all || a.summary))
+		return sd_usage(e, "audit --by-exercise goes with PROGRAM files, not --summary or --all");
 	if (all && optind < argc)
 		return sd_usage(e, "audit --all takes no PROGRAM files (it audits the open blocks)");
 	if (all)
@@ -100,7 +112,8 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		aout_json_begin(ctx->out);
 	else if (a.summary)
 		aout_sum_head(&so);
-	else if (ctx->opt.format == SD_FMT_CSV && !(csv = aout_muscle_table(1)))
+	else if (ctx->opt.format == SD_FMT_CSV &&
+		 !(csv = a.by_exercise ? aout_source_table() : aout_muscle_table(1)))
 		return sd_fail(e, "out of memory");
 	for (int i = optind; i < argc && !rc; i++)
 		rc = one(ctx, &a, argv[i], csv, &so, i == optind, e);
@@ -119,10 +132,13 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 const struct sd_cmd cmd_audit = {
 	.name = "audit",
 	.summary = "weekly fractional sets per muscle of programs, placed on the curve",
-	.usage = "audit [--summary] [--session-cap SETS] PROGRAM...\n"
+	.usage = "audit [--summary | --by-exercise] [--wide] [--session-cap SETS] PROGRAM...\n"
 		 "       setdose audit --all [--session-cap SETS]\n"
 		 "  PROGRAM         an INI or CSV program file (see 'man setdose', PROGRAM FILES)\n"
 		 "  --summary       one line per program and muscle instead of one report each\n"
+		 "  --by-exercise   for each muscle, the exercises and sets behind its total\n"
+		 "  --wide          every column: adds the group and +1set intervals (the default\n"
+		 "                  table fits 80 columns; CSV and JSON always have every column)\n"
 		 "  --all           every open block in the database, one line per athlete and\n"
 		 "                  muscle (the athlete's status, the block's planned weeks)\n"
 		 "  --session-cap N warn when a muscle gets more than N fractional sets in one\n"

@@ -71,7 +71,7 @@ static int one_block(const struct db_block *b, void *arg)
 
 	if (!x)
 		return -1;
-	struct sd_audit_info in = { x->name, &x->prog, &w->ctx->profile, &x->au, b->athlete };
+	struct sd_audit_info in = { x->name, &x->prog, &w->ctx->profile, &x->au, b->athlete, 0, NULL, 0 };
 	if (w->ctx->opt.format == SD_FMT_JSON) {
 		if (aout_json_item(w->ctx->out, &in, w->first))
 			return sd_fail(w->e, "out of memory");

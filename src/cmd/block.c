@@ -152,7 +152,7 @@ static int do_show(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		goto out;
 	snprintf(label, sizeof label, "block %lld, template '%s'", b.id, p.name);
 	snprintf(who, sizeof who, "%s (%s)", b.athlete, b.trained ? "trained" : "untrained");
-	struct sd_audit_info in = { label, &prog, &ctx->profile, &au, who };
+	struct sd_audit_info in = { label, &prog, &ctx->profile, &au, who, 0, NULL, 0 };
 	if (ctx->opt.format == SD_FMT_JSON) {
 		aout_json_begin(ctx->out);
 		rc = aout_json_item(ctx->out, &in, 1);

@@ -119,7 +119,7 @@ static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 			prog_free(&progs[done]);
 			goto out;
 		}
-		info[done] = (struct sd_audit_info){ path, &progs[done], &ctx->profile, &audits[done], NULL };
+		info[done] = (struct sd_audit_info){ path, &progs[done], &ctx->profile, &audits[done], NULL, 0, NULL, 0 };
 	}
 	rc = draw_to(out, force, NULL, info, n, e);
 	if (!rc)

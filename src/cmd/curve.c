@@ -14,8 +14,8 @@
 #include "../io/program_io.h"
 #include "../io/table.h"
 #include "../plot/textplot.h"
+#include "../io/wrap.h"
 #include "cmd.h"
-#include "../io/jsonout.h"
 
 extern const struct sd_cmd cmd_curve;
 
@@ -28,13 +28,11 @@ static int unicode_ok(void)
 	return cs && !strcmp(cs, "UTF-8");
 }
 
-static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, struct sd_err *e)
+static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, int wide,
+		       struct sd_err *e)
 {
-	static const char *const heads[] = { "sets", "gain%", "curve_lo", "curve_hi", "group_lo",
-					     "group_hi", "athlete_lo", "athlete_hi", "+1set%",
-					     "+1set_lo", "+1set_hi", "<zone" };
 	const struct sd_profile *p = &ctx->profile;
-	struct sd_table *t = tbl_new(12, heads);
+	struct sd_table *t = aout_gain_table("sets", 1);
 	double plateau = curve_plateau(p, cov, 1.0);
 	cJSON *arr = NULL;
 	char note[240];
@@ -70,17 +68,8 @@ static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, s
 		}
 		tbl_row(t);
 		tbl_set(t, 0, "%g", x);
-		tbl_set(t, 1, csv ? "%.3f" : "%.1f", curve_pct(pt.y));
-		tbl_set(t, 2, csv ? "%.3f" : "%.1f", curve_pct(pt.ci_lo));
-		tbl_set(t, 3, csv ? "%.3f" : "%.1f", curve_pct(pt.ci_hi));
-		tbl_set(t, 4, csv ? "%.3f" : "%.1f", curve_pct(pt.group_lo));
-		tbl_set(t, 5, csv ? "%.3f" : "%.1f", curve_pct(pt.group_hi));
-		tbl_set(t, 6, csv ? "%.3f" : "%.1f", curve_pct(pt.ath_lo));
-		tbl_set(t, 7, csv ? "%.3f" : "%.1f", curve_pct(pt.ath_hi));
-		tbl_set(t, 8, csv ? "%.4f" : "%.2f", mg.pct);
-		tbl_set(t, 9, csv ? "%.4f" : "%.2f", mg.lo);
-		tbl_set(t, 10, csv ? "%.4f" : "%.2f", mg.hi);
-		tbl_set(t, 11, "%s", zone_name(curve_zone(p, plateau, x)));
+		int c = aout_gain_cells(t, 1, &pt, &mg, csv);
+		tbl_set(t, c, "%s", zone_name(curve_zone(p, plateau, x)));
 	}
 	if (arr) {
 		cJSON *root = cJSON_CreateObject();
@@ -101,17 +90,22 @@ static int print_table(struct sd_ctx *ctx, double step, struct sd_covars *cov, s
 		free(s);
 		cJSON_Delete(root);
 	} else {
-		if (ctx->opt.format == SD_FMT_TABLE)
-			fprintf(ctx->out, "%s; %s, %g-week block; %.0f%% intervals; plateau at %g weekly "
-				"fractional sets\n%s%s%s\n", p->name, cov->trained >= 0.5 ? "trained" :
-				"untrained", cov->weeks, ctx->opt.level * 100, plateau,
-				note[0] ? "warning: " : "", note, note[0] ? "\n" : "");
-		tbl_print(t, ctx->out, csv);
+		if (ctx->opt.format == SD_FMT_TABLE) {
+			wrap_printf(ctx->out, 2, "%s; %s, %g-week block; %.0f%% intervals; plateau at "
+				    "%g weekly fractional sets", p->name, cov->trained >= 0.5 ?
+				    "trained" : "untrained", cov->weeks, ctx->opt.level * 100, plateau);
+			if (note[0])
+				wrap_printf(ctx->out, 9, "warning: %s", note);
+			fputc('\n', ctx->out);
+		}
+		tbl_print(t, ctx->out, tbl_mode(csv, wide));
 		if (ctx->opt.format == SD_FMT_TABLE) {
 			fputc('\n', ctx->out);
 			aout_bands_text(ctx->out, (int)lround(ctx->opt.level * 100));
-			fprintf(ctx->out, "+1set: percentage points one more weekly set adds on the "
-				"average curve, with its interval.\n");
+			aout_plus1_text(ctx->out);
+			if (!wide)
+				wrap_printf(ctx->out, 2, "--wide adds the group interval and the +1set "
+					    "interval.");
 		}
 	}
 	tbl_free(t);
@@ -137,17 +131,19 @@ static int print_plot(struct sd_ctx *ctx, const struct sd_covars *cov, const cha
 		}
 		rc = audit_run(&prog, &ctx->lib, &ctx->profile, cov, &o, &au, e);
 		if (!rc) {
-			char letter = 'a';
-			fprintf(ctx->out, "\nmarks (%s):", prog.name);
+			char letter = 'a', marks[SD_NMUSCLES * 40];
+			size_t len = 0;
 			for (int m = 0; m < SD_NMUSCLES; m++) {
 				if (au.row[m].dose.fractional <= 0)
 					continue;
 				double x = au.row[m].dose.fractional;
 				tplot_mark(tp, x > tp->x1 ? tp->x1 : x, curve_pct(au.row[m].pt.y), letter);
-				fprintf(ctx->out, " %c=%s %.1f", letter, muscle_name(m), x);
+				len += (size_t)snprintf(marks + len, sizeof marks - len, " %c=%s %.1f",
+							letter, muscle_name(m), x);
 				letter = letter == 'z' ? 'A' : (char)(letter + 1);
 			}
 			fputc('\n', ctx->out);
+			wrap_printf(ctx->out, 2, "marks (%s):%s", prog.name, marks);
 			audit_free(&au);
 		}
 		prog_free(&prog);
@@ -155,8 +151,8 @@ static int print_plot(struct sd_ctx *ctx, const struct sd_covars *cov, const cha
 	if (!rc) {
 		fputc('\n', ctx->out);
 		tplot_print(ctx->out, tp, unicode);
-		fprintf(ctx->out, "%s mean   %s %.0f%% the average curve   %s %.0f%% a new group or "
-			"study   %s %.0f%% one athlete\n", unicode ? "\u2588" : "#",
+		wrap_printf(ctx->out, 2, "%s mean   %s %.0f%% the average curve   %s %.0f%% a new "
+			    "group or study   %s %.0f%% one athlete", unicode ? "\u2588" : "#",
 			unicode ? "\u2593" : "=", ctx->opt.level * 100, unicode ? "\u2592" : ":",
 			ctx->opt.level * 100, unicode ? "\u2591" : ".", ctx->opt.level * 100);
 	}
@@ -170,11 +166,12 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		{ "program", required_argument, NULL, 'p' },
 		{ "step", required_argument, NULL, 's' },
 		{ "no-plot", no_argument, NULL, 'n' },
+		{ "wide", no_argument, NULL, 'w' },
 		{ NULL, 0, NULL, 0 },
 	};
 	const char *program = NULL;
 	double step = 1;
-	int c, plot = 1;
+	int c, plot = 1, wide = 0;
 	char *end;
 	struct sd_covars cov;
 
@@ -192,6 +189,9 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		case 'n':
 			plot = 0;
 			break;
+		case 'w':
+			wide = 1;
+			break;
 		default:
 			return sd_usage(e, "usage: setdose %s", cmd_curve.usage);
 		}
@@ -207,7 +207,7 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		cov = cmd_covars(ctx, prog.weeks);
 		prog_free(&prog);
 	}
-	if (print_table(ctx, step, &cov, e))
+	if (print_table(ctx, step, &cov, wide, e))
 		return -1;
 	if (plot && ctx->opt.format == SD_FMT_TABLE && print_plot(ctx, &cov, program, e))
 		return -1;
@@ -218,10 +218,12 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 const struct sd_cmd cmd_curve = {
 	.name = "curve",
 	.summary = "the dose-response curve with its three bands (curve, group, athlete)",
-	.usage = "curve [--program FILE] [--step SETS] [--no-plot]\n"
+	.usage = "curve [--program FILE] [--step SETS] [--no-plot] [--wide]\n"
 		 "  --program FILE  mark the program's muscles on the plot\n"
 		 "  --step SETS     table step in weekly fractional sets (default 1)\n"
-		 "  --no-plot       the table only",
+		 "  --no-plot       the table only\n"
+		 "  --wide          every column: adds the group and +1set intervals (the default\n"
+		 "                  table fits 80 columns)",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_curve,
 };

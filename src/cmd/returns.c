@@ -6,6 +6,7 @@
 
 #include "../io/jsonout.h"
 #include "../io/table.h"
+#include "../io/wrap.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_returns;
@@ -50,21 +51,56 @@ static void long_rows(struct sd_ctx *ctx, const double *d, int n, const struct s
 		}
 }
 
+/* The grid as a table: in panels of at most the output's width, or in one piece (--wide). */
+static int grid(struct sd_ctx *ctx, const double *d, int n, const struct sd_covars *cov, int wide)
+{
+	const char *heads[MAX_DOSES];
+	char lab[MAX_DOSES][24];
+	struct sd_table *t;
+
+	heads[0] = "from\\to";
+	for (int j = 1; j < n; j++) {
+		snprintf(lab[j], sizeof lab[j], "%g", d[j]);
+		heads[j] = lab[j];
+	}
+	if (!(t = tbl_new(n, heads)))
+		return -1;
+	for (int i = 0; i < n - 1; i++) {
+		if (tbl_row(t))
+			break;
+		tbl_set(t, 0, "%g", d[i]);
+		for (int j = i + 1; j < n; j++) {
+			struct sd_delta dl;
+			curve_delta(&ctx->profile, cov, d[i], d[j], ctx->opt.level, 0, &dl);
+			tbl_set(t, j, "%.1f%c", curve_pct(dl.d),
+				dl.practical ? '*' : dl.statistical ? '+' : '.');
+		}
+	}
+	tbl_print_panels(t, ctx->out, tbl_mode(0, wide), wide ? 0 : wrap_width(ctx->out), 1);
+	tbl_free(t);
+	return 0;
+}
+
 static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	static const struct option longopts[] = {
 		{ "doses", required_argument, NULL, 'd' },
+		{ "wide", no_argument, NULL, 'w' },
 		{ NULL, 0, NULL, 0 },
 	};
 	static const double dflt[] = { 0, 1, 2, 3, 4, 5, 6, 8, 10, 12, 15, 20, 25, 30 };
 	double d[MAX_DOSES];
-	int n = 0, c;
+	int n = 0, c, wide = 0;
 	const struct sd_profile *p = &ctx->profile;
 	struct sd_covars cov = cmd_covars(ctx, 0);
 	double plateau = curve_plateau(p, &cov, 1.0);
 
 	optind = 0;
 	while ((c = getopt_long(argc, argv, "+", longopts, NULL)) != -1) {
+		if (c == 'w') {
+			wide = 1;
+			continue;
+		}
 		if (c != 'd')
 			return sd_usage(e, "usage: setdose %s", cmd_returns.usage);
 		if (parse_doses(optarg, d, &n, p->dose_max, e))
@@ -113,30 +149,19 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 	 * it exceeds the SWC and '+' when only its interval excludes zero. */
 	char note[240];
 	curve_context_note(p, &cov, note, sizeof note);
-	fprintf(ctx->out, "Extra gain (%%, as a ratio of gains) from moving FROM -> TO weekly fractional sets\n"
-		"%s, %g-week block; the average curve. '*' beyond the SWC (%.1f%%), '+' interval "
-		"excludes 0 only, '.' neither.\n%s%s%s\n     from\\to", cov.trained >= 0.5 ? "trained" :
-		"untrained", cov.weeks, curve_pct(p->swc), note[0] ? "warning: " : "", note,
-		note[0] ? "\n" : "");
-	for (int j = 1; j < n; j++)
-		fprintf(ctx->out, " %6g", d[j]);
+	wrap_printf(ctx->out, 0, "Extra gain (%%, as a ratio of gains) from moving FROM -> TO weekly "
+		    "fractional sets");
+	wrap_printf(ctx->out, 0, "%s, %g-week block; the average curve. '*' beyond the SWC (%.1f%%), "
+		    "'+' interval excludes 0 only, '.' neither.", cov.trained >= 0.5 ? "trained" :
+		    "untrained", cov.weeks, curve_pct(p->swc));
+	if (note[0])
+		wrap_printf(ctx->out, 9, "warning: %s", note);
 	fputc('\n', ctx->out);
-	for (int i = 0; i < n - 1; i++) {
-		fprintf(ctx->out, "%11g", d[i]);
-		for (int j = 1; j < n; j++) {
-			if (j <= i) {
-				fprintf(ctx->out, " %6s", "");
-				continue;
-			}
-			struct sd_delta dl;
-			curve_delta(p, &cov, d[i], d[j], ctx->opt.level, 0, &dl);
-			fprintf(ctx->out, " %5.1f%c", curve_pct(dl.d),
-				dl.practical ? '*' : dl.statistical ? '+' : '.');
-		}
-		fputc('\n', ctx->out);
-	}
-	fprintf(ctx->out, "\nPractical plateau: %g weekly fractional sets (from there, no dose up to %g "
-		"adds more than the SWC).\n", plateau, p->dose_max);
+	if (grid(ctx, d, n, &cov, wide))
+		return sd_fail(e, "out of memory");
+	fputc('\n', ctx->out);
+	wrap_printf(ctx->out, 0, "Practical plateau: %g weekly fractional sets (from there, no dose up "
+		    "to %g adds more than the SWC).", plateau, p->dose_max);
 	cmd_print_caution(ctx);
 	return 0;
 }
@@ -144,8 +169,10 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 const struct sd_cmd cmd_returns = {
 	.name = "returns",
 	.summary = "what more or fewer weekly sets buy, and the practical plateau",
-	.usage = "returns [--doses A,B,...]\n"
-		 "  --doses LIST  weekly fractional sets to compare (default 0,1,...,30 in steps)",
+	.usage = "returns [--doses A,B,...] [--wide]\n"
+		 "  --doses LIST  weekly fractional sets to compare (default 0,1,...,30 in steps)\n"
+		 "  --wide        the grid in one piece (by default, panels of at most the\n"
+		 "                terminal's width, 80 columns when not a terminal)",
 	.flags = CMD_PROFILE,
 	.exec = exec_returns,
 };

@@ -88,14 +88,14 @@ void tbl_locale(void)
 }
 
 /* Display width of UTF-8 text (muscle names are ASCII, but program and athlete names may not
- * be), so columns line up on a terminal. */
+ * be), so columns line up on a terminal. A colour escape (ESC [ ... letter) takes no column. */
 int tbl_width(const char *s)
 {
 	mbstate_t st;
 	int w = 0;
 	const char *p = s;
 
-	while (*p && !(*p & 0x80))   /* plain ASCII, the common case: one column a byte */
+	while (*p && !(*p & 0x80) && *p != '\033')   /* plain ASCII: one column a byte */
 		p++;
 	if (!*p)
 		return (int)(p - s);
@@ -103,7 +103,14 @@ int tbl_width(const char *s)
 	memset(&st, 0, sizeof st);
 	while (*s) {
 		wchar_t wc;
-		size_t n = mbrtowc(&wc, s, MB_CUR_MAX, &st);
+		size_t n;
+		if (s[0] == '\033' && s[1] == '[') {
+			for (s += 2; *s && !(*s >= 0x40 && *s <= 0x7e); s++)
+				;
+			s += !!*s;
+			continue;
+		}
+		n = mbrtowc(&wc, s, MB_CUR_MAX, &st);
 		if (n == (size_t)-1 || n == (size_t)-2 || n == 0) {
 			w++;
 			s++;

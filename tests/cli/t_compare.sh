@@ -23,7 +23,7 @@ hasnt out 'P\(>SWC\)|verdict' "no probability-beyond-SWC column"
 has out "^profile 'strength-default' \(calibrated\)"
 has out '^hard sets a week +3 +8'
 has out '^sessions +1 +2'
-has out 'Not medical advice'
+says out 'Not medical advice'
 
 run 0 "$SD" compare --format csv a.ini b.ini
 has out '^A,B,chest,3\.00,8\.00,2\.8167,2\.2585,3\.3780,2\.3480,3\.2876,some-gain$' "csv row by hand"
