@@ -151,8 +151,8 @@ static int print_plot(struct sd_ctx *ctx, const struct sd_covars *cov, const cha
 	if (!rc) {
 		fputc('\n', ctx->out);
 		tplot_print(ctx->out, tp, unicode);
-		wrap_printf(ctx->out, 2, "%s mean   %s %.0f%% the average curve   %s %.0f%% a new "
-			    "group or study   %s %.0f%% one athlete", unicode ? "\u2588" : "#",
+		wrap_printf(ctx->out, 2, "%s mean  %s %.0f%% the average curve  %s %.0f%% a new "
+			    "group or study  %s %.0f%% one athlete", unicode ? "\u2588" : "#",
 			unicode ? "\u2593" : "=", ctx->opt.level * 100, unicode ? "\u2592" : ":",
 			ctx->opt.level * 100, unicode ? "\u2591" : ".", ctx->opt.level * 100);
 	}
