@@ -81,7 +81,7 @@ assert abs(ch["se_lnrr"] - 0.00500771) < 1e-6, ch   # JSON rounds to 6 decimals
 assert ch["decision"] == "some-gain" and "random-slope variance" in d["intervals"]
 PY
 run 0 "$SD" --profile slopes.ini compare a.ini b.ini
-has out "adds the profile's random-slope variance"
+says out "adds the profile's random-slope variance"
 
 # Bad input: one line, status 2 for usage and 1 for unreadable programs. Comparing files never
 # creates a database; a name that is no file is looked up only in an existing one.
