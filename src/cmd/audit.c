@@ -132,7 +132,7 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 const struct sd_cmd cmd_audit = {
 	.name = "audit",
 	.summary = "weekly fractional sets per muscle of programs, placed on the curve",
-	.usage = "audit [--summary | --by-exercise] [--wide] [--session-cap SETS] PROGRAM...\n"
+	.usage = "audit [--summary | --by-exercise] [--wide] [--session-cap N] PROGRAM...\n"
 		 "       setdose audit --all [--session-cap SETS]\n"
 		 "  PROGRAM         an INI or CSV program file (see 'man setdose', PROGRAM FILES)\n"
 		 "  --summary       one line per program and muscle instead of one report each\n"

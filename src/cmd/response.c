@@ -286,22 +286,23 @@ done:
 const struct sd_cmd cmd_response = {
 	.name = "response",
 	.summary = "did the athlete respond as predicted? observed vs predicted gains per block",
-	.usage = "response ATHLETE [--block ID] [--priors] [--prior-sd SD] [--test-error SD]\n"
-		 "                  [--window DAYS] [--wide]\n"
-		 "  for each completed block and tested lift with a test near the block's start and\n"
-		 "  one near its end: observed change, the curve's prediction for the dose of the\n"
-		 "  lift's prime movers, and the observation's percentile; then the athlete's\n"
+	.usage = "response ATHLETE [--block ID] [--priors] [--prior-sd SD]\n"
+		 "                 [--test-error SD] [--window DAYS] [--wide]\n"
+		 "  for each completed block and tested lift with a test near the block's start\n"
+		 "  and one near its end: observed change, the curve's prediction for the dose of\n"
+		 "  the lift's prime movers, and the observation's percentile; then the athlete's\n"
 		 "  personal response: the posterior of their own deviation from the curve in a\n"
-		 "  hierarchical model (athlete, block, test error; the curve's error shared by all)\n"
-		 "  whose athlete and block variances are estimated by REML from every athlete's\n"
-		 "  observations once at least 10 athletes have them and 5 have two or more blocks,\n"
-		 "  else the stated priors (the output says which)\n"
+		 "  hierarchical model (athlete, block, test error; the curve's error shared by\n"
+		 "  all) whose athlete and block variances are estimated by REML from every\n"
+		 "  athlete's observations once at least 10 athletes have them and 5 have two or\n"
+		 "  more blocks, else the stated priors (the output says which)\n"
 		 "  --block ID       show only this block's rows (the personal estimate uses all)\n"
 		 "  --priors         use the stated priors even when the roster could estimate\n"
 		 "  --prior-sd SD    prior SD of the athlete's deviation, log scale (default: the\n"
 		 "                   square root of the profile's between-athlete variance)\n"
 		 "  --test-error SD  1RM test-retest error per test, log scale (default 0.03)\n"
-		 "  --window DAYS    how near a test must be to a block's start or end (default 14)\n"
+		 "  --window DAYS    how near a test must be to a block's start or end\n"
+		 "                   (default 14)\n"
 		 "  --wide           every column: the tests (dates, e1RM, reps), lnRR, weeks and\n"
 		 "                   the percentile (the default table fits 80 columns)",
 	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,

@@ -82,6 +82,12 @@ done <athletes.txt
 run 0 "$SD" --db "$DB" response "Maren Oakhollow"
 golden response-oakhollow
 
+# The commands' help, which names --wide.
+for c in audit curve returns response; do
+	fits "help $c" "$SD" help "$c"
+	has out '--wide' "help $c names --wide"
+done
+
 # --wide: more columns than the default, every one of them; the lines may then pass 80.
 ncols() { grep -E "$1" "$TMP/out" | head -n 1 | awk '{ print NF }'; }
 run 0 "$SD" audit "$P/demo-fullbody3.ini"
