@@ -16,6 +16,7 @@ extern const struct sd_cmd cmd_audit;
 struct audit_args {
 	int summary, all;
 	double cap;
+	int wide, by_exercise;
 };
 
 static const struct sd_optdef opts[] = {
@@ -28,6 +29,11 @@ static const struct sd_optdef opts[] = {
 	  offsetof(struct audit_args, cap), NULL, "N",
 	  "warn when a muscle gets more than N fractional sets in one session\n"
 	  "(default 10; common practice, no source)" },
+	{ "by-exercise", OPT_FLAG, 0, 0, offsetof(struct audit_args, by_exercise), NULL, NULL,
+	  "for each muscle, the exercises and sets behind its total" },
+	{ "wide", OPT_FLAG, 0, 0, offsetof(struct audit_args, wide), NULL, NULL,
+	  "every column: adds the group and +1set intervals (the default\n"
+	  "table fits 80 columns; CSV and JSON always have every column)" },
 };
 
 static int one(struct sd_ctx *ctx, const struct audit_args *a, const char *path,
@@ -43,13 +49,15 @@ static int one(struct sd_ctx *ctx, const struct audit_args *a, const char *path,
 	struct sd_covars cov = app_covars(ctx, prog.weeks);
 	if (audit_run(&prog, &ctx->lib, &ctx->profile, &cov, &o, &au, e))
 		goto out;
-	struct sd_audit_info in = { path, &prog, &ctx->profile, &au, NULL, 0 };
+	struct sd_audit_info in = { .label = path, .prog = &prog, .prof = &ctx->profile,
+				    .audit = &au, .wide = a->wide, .lib = &ctx->lib,
+				    .by_exercise = a->by_exercise };
 	if (ctx->opt.format == SD_FMT_JSON)
 		rc = aout_json_item(ctx->out, &in, first);
 	else if (a->summary) {
 		rc = aout_sum_rows(so, &in);
 	} else if (csv)
-		rc = aout_muscle_rows(csv, &in, 1);
+		rc = a->by_exercise ? aout_source_rows(csv, &in) : aout_muscle_rows(csv, &in, 1);
 	else {
 		if (!first)
 			fputc('\n', ctx->out);
@@ -66,7 +74,7 @@ out:
 
 static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	struct audit_args a = { 0, 0, SD_SESSION_CAP };
+	struct audit_args a = { .cap = SD_SESSION_CAP };
 	struct sd_table *csv = NULL;
 	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7 };
 	struct pathlist list = { NULL, 0, NULL };
@@ -77,6 +85,8 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		return -1;
 	files = argv + 1;
 	nfiles = argc - 1;
+	if (a.by_exercise && (a.all || a.summary))
+		return sd_usage(e, "audit --by-exercise goes with PROGRAM files, not --summary or --all");
 	if (a.all && nfiles)
 		return sd_usage(e, "audit --all takes no PROGRAM files (it audits the open blocks)");
 	if (a.all)
@@ -104,7 +114,8 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		aout_json_begin(ctx->out);
 	else if (a.summary)
 		aout_sum_head(&so);
-	else if (ctx->opt.format == SD_FMT_CSV && !(csv = aout_muscle_table(1)))
+	else if (ctx->opt.format == SD_FMT_CSV &&
+		 !(csv = a.by_exercise ? aout_source_table() : aout_muscle_table(1)))
 		rc = sd_fail(e, "out of memory");
 	for (int i = 0; i < nfiles && !rc; i++)
 		rc = one(ctx, &a, files[i], csv, &so, i == 0, e);
@@ -124,10 +135,10 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 const struct sd_cmd cmd_audit = {
 	.name = "audit",
 	.summary = "weekly fractional sets per muscle of programs, placed on the curve",
-	.usage = "audit [--summary] [--session-cap SETS] PROGRAM...\n"
+	.usage = "audit [--summary | --by-exercise] [--wide] [--session-cap N] PROGRAM...\n"
 		 "       setdose audit --all [--session-cap SETS]\n"
-		 "  PROGRAM         an INI or CSV program file (see 'man setdose', PROGRAM FILES);\n"
-		 "                  '-' alone reads the file names, one a line, from standard input",
+		 "  PROGRAM  an INI or CSV program file (see 'man setdose', PROGRAM FILES); '-'\n"
+		 "           alone reads the file names, one a line, from standard input",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_audit,
 	.opts = opts,

@@ -77,8 +77,9 @@ static int one_block(const struct db_block *b, void *arg)
 
 	if (!x)
 		return -1;
-	struct sd_audit_info in = { x->name, &x->prog, &w->ctx->profile, &x->au, b->athlete,
-				    app_block_overdue(b, w->today) };
+	struct sd_audit_info in = { .label = x->name, .prog = &x->prog, .prof = &w->ctx->profile,
+				    .audit = &x->au, .athlete = b->athlete,
+				    .overdue_days = app_block_overdue(b, w->today) };
 	if (in.overdue_days && w->noverdue++ < OVERDUE_SHOWN)
 		snprintf(w->overdue[w->noverdue - 1], sizeof w->overdue[0],
 			 "block %lld of '%s' is open %d days past its planned end; end it with "

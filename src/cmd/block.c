@@ -141,7 +141,9 @@ static int do_show(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		goto out;
 	snprintf(label, sizeof label, "block %lld, template '%s'", b.id, p.name);
 	snprintf(who, sizeof who, "%s (%s)", b.athlete, b.trained ? "trained" : "untrained");
-	struct sd_audit_info in = { label, &prog, &ctx->profile, &au, who, app_block_overdue(&b, today) };
+	struct sd_audit_info in = { .label = label, .prog = &prog, .prof = &ctx->profile,
+				    .audit = &au, .athlete = who,
+				    .overdue_days = app_block_overdue(&b, today) };
 	if (ctx->opt.format == SD_FMT_JSON) {
 		aout_json_begin(ctx->out);
 		rc = aout_json_item(ctx->out, &in, 1);

@@ -131,7 +131,8 @@ static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err 
 			prog_free(&progs[done]);
 			goto out;
 		}
-		info[done] = (struct sd_audit_info){ path, &progs[done], &ctx->profile, &audits[done], NULL, 0 };
+		info[done] = (struct sd_audit_info){ .label = path, .prog = &progs[done],
+						     .prof = &ctx->profile, .audit = &audits[done] };
 	}
 	rc = draw_to(out, force, NULL, info, n, e);
 	if (!rc)

@@ -11,5 +11,5 @@ void cmd_print_caution(struct sd_ctx *ctx)
 	fputc('\n', ctx->out);
 	if (ctx->profile.name[0])   /* loaded: the numbers above come from it */
 		aout_profile_line(ctx->out, &ctx->profile);
-	fprintf(ctx->out, "%s\n", aout_caution);
+	aout_caution_text(ctx->out);
 }

@@ -12,6 +12,7 @@
 #include "../io/curve_out.h"
 #include "../io/table.h"
 #include "../plot/textplot.h"
+#include "../io/wrap.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_curve;
@@ -44,17 +45,19 @@ static int print_plot(struct sd_ctx *ctx, const struct sd_covars *cov, const cha
 		}
 		rc = audit_run(&prog, &ctx->lib, &ctx->profile, cov, &o, &au, e);
 		if (!rc) {
-			char letter = 'a';
-			fprintf(ctx->out, "\nmarks (%s):", prog.name);
+			char letter = 'a', marks[SD_NMUSCLES * 40];
+			size_t len = 0;
 			for (int m = 0; m < SD_NMUSCLES; m++) {
 				if (au.row[m].dose.fractional <= 0)
 					continue;
 				double x = au.row[m].dose.fractional;
 				tplot_mark(tp, x > tp->x1 ? tp->x1 : x, curve_pct(au.row[m].pt.y), letter);
-				fprintf(ctx->out, " %c=%s %.1f", letter, muscle_name(m), x);
+				len += (size_t)snprintf(marks + len, sizeof marks - len, " %c=%s %.1f",
+							letter, muscle_name(m), x);
 				letter = letter == 'z' ? 'A' : (char)(letter + 1);
 			}
 			fputc('\n', ctx->out);
+			wrap_printf(ctx->out, 2, "marks (%s):%s", prog.name, marks);
 			audit_free(&au);
 		}
 		prog_free(&prog);
@@ -62,8 +65,8 @@ static int print_plot(struct sd_ctx *ctx, const struct sd_covars *cov, const cha
 	if (!rc) {
 		fputc('\n', ctx->out);
 		tplot_print(ctx->out, tp, unicode);
-		fprintf(ctx->out, "%s mean   %s %.0f%% the average curve   %s %.0f%% a new group or "
-			"study   %s %.0f%% one athlete\n", unicode ? "\u2588" : "#",
+		wrap_printf(ctx->out, 2, "%s mean  %s %.0f%% the average curve  %s %.0f%% a new "
+			    "group or study  %s %.0f%% one athlete", unicode ? "\u2588" : "#",
 			unicode ? "\u2593" : "=", ctx->opt.level * 100, unicode ? "\u2592" : ":",
 			ctx->opt.level * 100, unicode ? "\u2591" : ".", ctx->opt.level * 100);
 	}
@@ -77,7 +80,7 @@ _Static_assert((int)CURVE_TABLE == (int)SD_FMT_TABLE && (int)CURVE_CSV == (int)S
 struct curve_opts {
 	const char *program;
 	double step;
-	int no_plot;
+	int no_plot, wide;
 };
 
 static const struct sd_optdef opts[] = {
@@ -86,11 +89,14 @@ static const struct sd_optdef opts[] = {
 	{ "step", OPT_NUM, 0.1, 10, offsetof(struct curve_opts, step), NULL, "SETS",
 	  "table step in weekly fractional sets (default 1)" },
 	{ "no-plot", OPT_FLAG, 0, 0, offsetof(struct curve_opts, no_plot), NULL, NULL, "the table only" },
+	{ "wide", OPT_FLAG, 0, 0, offsetof(struct curve_opts, wide), NULL, NULL,
+	  "every column: adds the group and +1set intervals (the default\n"
+	  "table fits 80 columns)" },
 };
 
 static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	struct curve_opts o = { NULL, 1, 0 };
+	struct curve_opts o = { NULL, 1, 0, 0 };
 	const char *program;
 	double step;
 	int plot;
@@ -112,7 +118,8 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 		cov = app_covars(ctx, prog.weeks);
 		prog_free(&prog);
 	}
-	if (curve_out_print(ctx->out, &ctx->profile, &cov, ctx->opt.level, step, ctx->opt.format))
+	if (curve_out_print(ctx->out, &ctx->profile, &cov, ctx->opt.level, step, o.wide,
+			    ctx->opt.format))
 		return sd_fail(e, "out of memory");
 	if (plot && ctx->opt.format == SD_FMT_TABLE && print_plot(ctx, &cov, program, e))
 		return -1;
@@ -123,7 +130,7 @@ static int exec_curve(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 const struct sd_cmd cmd_curve = {
 	.name = "curve",
 	.summary = "the dose-response curve with its three bands (curve, group, athlete)",
-	.usage = "curve [--program FILE] [--step SETS] [--no-plot]",
+	.usage = "curve [--program FILE] [--step SETS] [--no-plot] [--wide]",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_curve,
 	.opts = opts,

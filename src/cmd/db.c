@@ -3,6 +3,7 @@
 #include <string.h>
 
 #include "../io/safefile.h"
+#include "../io/wrap.h"
 #include "dbutil.h"
 
 extern const struct sd_cmd cmd_db;
@@ -70,9 +71,9 @@ static int do_recover(struct sd_ctx *ctx, const char *path, int argc, char **arg
 		return -1;
 	fprintf(ctx->out, "recovered %lld rows of %s into %s: %s\n", r.rows, path, file, r.detail);
 	if (r.dropped || r.damaged)
-		fprintf(ctx->out, "note: %lld row%s left out (a broken constraint or a lost parent "
-			"row), %d damaged region%s skipped; look the copy over before using it with "
-			"--db %s\n", r.dropped, r.dropped == 1 ? "" : "s", r.damaged,
+		wrap_printf(ctx->out, 6, "note: %lld row%s left out (a broken constraint or a lost "
+			    "parent row), %d damaged region%s skipped; look the copy over before using it "
+			    "with --db %s", r.dropped, r.dropped == 1 ? "" : "s", r.damaged,
 			r.damaged == 1 ? "" : "s", file);
 	return 0;
 }

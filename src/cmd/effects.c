@@ -11,6 +11,7 @@
 #include "../io/safefile.h"
 #include "../io/table.h"
 #include "../app/parse.h"
+#include "../io/wrap.h"
 #include "cmd.h"
 
 extern const struct sd_cmd cmd_effects;
@@ -200,7 +201,7 @@ static int run(struct sd_ctx *ctx, struct job *j, const char *path, struct sd_er
 		fprintf(ctx->out, "wrote %d %s effects to '%s'\n", t.nrow,
 			j->design == TWO_GROUP ? "two-group lnRR" : "pre-post lnRR", j->out);
 	if (j->out && ndef)
-		fprintf(ctx->out, "note: default r = %g assumed on %d of %d rows (r_source = default)\n",
+		wrap_printf(ctx->out, 6, "note: default r = %g assumed on %d of %d rows (r_source = default)",
 			j->r_default, ndef, t.nrow);
 	rc = 0;
 done:

@@ -14,6 +14,7 @@
 #include "../io/safefile.h"
 #include "../io/table.h"
 #include "../io/fit_out.h"
+#include "../io/wrap.h"
 #include "mrmodel.h"
 
 extern const struct sd_cmd cmd_fit;
@@ -272,8 +273,8 @@ static void print_forms(struct sd_ctx *ctx, const char *path, const struct mrm *
 			"mean log predictive density per effect, joint within a study).\n");
 		for (int i = 0; i < n; i++)
 			if (r[i].cv.skipped)
-				fprintf(ctx->out, "note: %s form: %d studies could not be left out (the "
-					"rest could not carry the model)\n", form_name(r[i].form),
+				wrap_printf(ctx->out, 6, "note: %s form: %d studies could not be left out "
+					    "(the rest could not carry the model)", form_name(r[i].form),
 					r[i].cv.skipped);
 	}
 	tbl_free(t);
@@ -418,8 +419,8 @@ static void wrote_profile(struct sd_ctx *ctx, const char *out, const struct mrm 
 		"assumption)\n", avar);
 	for (int j = 2; j < f->p; j++)
 		if (strcmp(mod->names[j], "weeks") && strcmp(mod->names[j], "trained"))
-			fprintf(ctx->out, "note: moderator '%s' is not an athlete covariate (weeks, "
-				"trained); the curve holds it at 0\n", mod->names[j]);
+			wrap_printf(ctx->out, 6, "note: moderator '%s' is not an athlete covariate "
+				    "(weeks, trained); the curve holds it at 0", mod->names[j]);
 }
 
 /* Every number the fit prints is finite; otherwise nothing of it is shown. */

@@ -5,6 +5,8 @@
 
 #include "../app/parse.h"
 
+#define OPT_HELP_WIDTH 80   /* `setdose help` fits 80 columns */
+
 /* "-5", "-2.5kg": a negative number is an argument (the command then says what is wrong
  * with it), never an option. */
 static int is_number(const char *w)
@@ -138,14 +140,26 @@ void opt_help(FILE *f, const struct sd_optdef *defs, int n)
 	}
 	for (int i = 0; i < n; i++) {
 		char left[64];
+		int indent = 4 + w + 2, col = indent, room = OPT_HELP_WIDTH - indent;
 		snprintf(left, sizeof left, "%s%s%s", defs[i].name, defs[i].arg ? " " : "",
 			 defs[i].arg ? defs[i].arg : "");
-		/* A help text of several lines continues under its first line. */
 		fprintf(f, "  --%-*s  ", w, left);
-		for (const char *h = defs[i].help; *h; h++) {
-			fputc(*h, f);
-			if (*h == '\n')
-				fprintf(f, "    %*s", w, "");
+		/* Words fill the line up to OPT_HELP_WIDTH columns and continue under the first
+		 * (a newline in the text is a space: the width decides). */
+		for (const char *h = defs[i].help; *h;) {
+			size_t len = strcspn(h, " \n");
+			if (col > indent && col + 1 + (int)len > indent + (room > 20 ? room : 20)) {
+				fprintf(f, "\n%*s", indent, "");
+				col = indent;
+			} else if (col > indent) {
+				fputc(' ', f);
+				col++;
+			}
+			fwrite(h, 1, len, f);
+			col += (int)len;
+			h += len;
+			while (*h == ' ' || *h == '\n')
+				h++;
 		}
 		fputc('\n', f);
 	}

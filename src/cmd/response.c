@@ -15,12 +15,14 @@
 #include "../io/response_out.h"
 #include "../app/respdata.h"
 #include "dbutil.h"
+#include "../io/wrap.h"
 
 extern const struct sd_cmd cmd_response;
 
 struct rargs {
 	long long block;        /* 0: all */
 	long long window;
+	int wide;               /* --wide: every column in the table */
 	struct resp_opts ro;
 };
 
@@ -37,6 +39,9 @@ static const struct sd_optdef opts[] = {
 	  "1RM test-retest error per test, log scale (default 0.03)" },
 	{ "window", OPT_INT, 0, 365, RA(window), NULL, "DAYS",
 	  "how near a test must be to a block's start or end (default 14)" },
+	{ "wide", OPT_FLAG, 0, 0, RA(wide), NULL, NULL,
+	  "every column: the tests (dates, e1RM, reps), lnRR, weeks and\n"
+	  "the percentile (the default table fits 80 columns)" },
 };
 #undef RA
 
@@ -49,6 +54,7 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 	ra->ro.prior_sd = RESPD_PRIOR_PROFILE;
 	ra->ro.level = ctx->opt.level;
 	ra->ro.priors_only = 0;
+	ra->wide = 0;
 	if ((argc = opt_parse("response", opts, OPT_N(opts), ra, argc, argv, e)) < 0)
 		return -1;
 	if (argc != 2)
@@ -82,64 +88,77 @@ static void set_row(struct sd_rec *r, const struct resp_row *w, int lb, int prec
 	rec_set(r, c++, "%s", curve_beyond_names(w->beyond, beyond, sizeof beyond));
 }
 
+/* The narrow table keeps what a coach reads first: the lift, its dose, the observed change
+ * against the prediction's interval, and the evidence flags; '~' columns (the tests
+ * themselves, lnRR, weeks, percentile) are --wide, CSV and JSON only. */
 #define NCOLS 17
-static const char *const heads[NCOLS] = { "block", "<lift", "<pre", "<post", "e1rm_pre",
-	"e1rm_post", "reps_pre", "reps_post", "change%", "lnRR", "dose", "weeks", "predicted%",
-	"obs_lo%", "obs_hi%", "percentile", "<beyond" };
+static const char *const heads[NCOLS] = { "block", "<lift", "~<pre", "~<post", "~e1rm_pre",
+	"~e1rm_post", "~reps_pre", "~reps_post", "change%", "~lnRR", "dose", "~weeks",
+	"predicted%", "obs_lo%", "obs_hi%", "~percentile", "<beyond" };
 
 static void print_vars(FILE *f, const struct sd_profile *p, const struct resp_data *rs,
 		       int from_profile)
 {
 	const struct resp_vars *v = &rs->vars;
 
-	if (v->estimated)
-		fprintf(f, "variances: estimated from the roster by REML (%d athletes with "
-			"observations, %d with two or more blocks, %d observations):\n  between "
-			"athletes %.5f (SD %.3f), between blocks %.5f (SD %.3f); the roster's mean "
-			"deviation from the curve %+.1f%% (SE %.4f lnRR)\n", v->roster_athletes,
-			v->roster_repeated, v->roster_obs, v->athlete, sqrt(v->athlete), v->block,
-			sqrt(v->block), curve_pct(v->mean_dev), v->mean_dev_se);
-	else
-		fprintf(f, "variances: the stated priors (%s):\n  between athletes %.5f (SD %.3f%s), "
-			"between blocks %.5f (SD %.3f: tau2 + sigma2 of profile '%s'%s)\n", v->why,
-			v->athlete, sqrt(v->athlete), from_profile ? ", the profile's one-athlete "
-			"variance" : ", --prior-sd", v->block, sqrt(v->block), p->name,
-			v->block_slope > 0 ? ", with its random slopes" : "");
+	if (v->estimated) {
+		wrap_printf(f, 2, "variances: estimated from the roster by REML (%d athletes with "
+			    "observations, %d with two or more blocks, %d observations):",
+			    v->roster_athletes, v->roster_repeated, v->roster_obs);
+		wrap_printf(f, 4, "  between athletes %.5f (SD %.3f), between blocks %.5f (SD %.3f); "
+			    "the roster's mean deviation from the curve %+.1f%% (SE %.4f lnRR)",
+			    v->athlete, sqrt(v->athlete), v->block, sqrt(v->block),
+			    curve_pct(v->mean_dev), v->mean_dev_se);
+	} else {
+		wrap_printf(f, 2, "variances: the stated priors (%s):", v->why);
+		wrap_printf(f, 4, "  between athletes %.5f (SD %.3f%s), between blocks %.5f (SD %.3f: "
+			    "tau2 + sigma2 of profile '%s'%s)", v->athlete, sqrt(v->athlete),
+			    from_profile ? ", the profile's one-athlete variance" : ", --prior-sd",
+			    v->block, sqrt(v->block), p->name,
+			    v->block_slope > 0 ? ", with its random slopes" : "");
+	}
 }
 
 static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const struct rargs *ra,
-			const struct resp_data *rs, const struct sd_rec *r, const struct resp_personal *pr,
+			const struct resp_data *rs, struct sd_rec *r, const struct resp_personal *pr,
 			int lb)
 {
 	int lvl = (int)lround(ra->ro.level * 100);
+	FILE *f = ctx->out;
 
-	fprintf(ctx->out, "athlete %s (%s); profile %s; loads in %s\n", a->name,
-		a->trained ? "trained" : "untrained", ctx->profile.name, units_name(lb));
-	fprintf(ctx->out, "test error %.3f per 1RM test (log scale, --test-error), more when pre and "
-		"post come from different rep counts;\ntests within %lld days of a block's start and end "
-		"(--window)\n", ra->ro.test_sd, ra->window);
-	print_vars(ctx->out, &ctx->profile, rs, ra->ro.prior_sd == RESPD_PRIOR_PROFILE);
-	fputc('\n', ctx->out);
+	wrap_printf(f, 2, "athlete %s (%s); profile %s; loads in %s", a->name,
+		    a->trained ? "trained" : "untrained", ctx->profile.name, units_name(lb));
+	wrap_printf(f, 2, "test error %.3f per 1RM test (log scale, --test-error), more when pre and "
+		    "post come from different rep counts; tests within %lld days of a block's start "
+		    "and end (--window)", ra->ro.test_sd, ra->window);
+	print_vars(f, &ctx->profile, rs, ra->ro.prior_sd == RESPD_PRIOR_PROFILE);
+	fputc('\n', f);
+	rec_wide(r, ra->wide);
 	if (rec_rows(r))
-		rec_print(r, ctx->out);
+		rec_print(r, f);
 	else
-		fprintf(ctx->out, "no completed block%s with a test of the same lift near its start "
-			"and its end\n", ra->block ? " (of those asked)" : "");
-	fprintf(ctx->out, "\ndose: weekly fractional sets of the lift's prime movers; predicted: the "
-		"curve for that dose, the athlete's\nstatus and the block's length; obs_lo..obs_hi: "
-		"the %d%% interval where the change was expected\n(the curve's error, the athlete's "
-		"and the block's deviations, test error); percentile: where it fell;\nbeyond: values "
-		"outside the profile's evidence (held at its edge).\n\n", lvl);
-	fprintf(ctx->out, "personal response: %+.1f%% (lnRR %+.4f), %d%% interval %+.1f%% to %+.1f%%\n",
-		curve_pct(pr->mean), pr->mean, lvl, curve_pct(pr->lo), curve_pct(pr->hi));
+		wrap_printf(f, 2, "no completed block%s with a test of the same lift near its start "
+			    "and its end", ra->block ? " (of those asked)" : "");
+	fputc('\n', f);
+	wrap_printf(f, 0, "dose: weekly fractional sets of the lift's prime movers; predicted: the "
+		    "curve for that dose, the athlete's status and the block's length; "
+		    "obs_lo..obs_hi: the %d%% interval where the change was expected (the curve's "
+		    "error, the athlete's and the block's deviations, test error); %sbeyond: values "
+		    "outside the profile's evidence (held at its edge).%s", lvl,
+		    ra->wide ? "percentile: where it fell; " : "", ra->wide ? "" : " --wide adds "
+		    "the tests (dates, e1RM, reps), lnRR, weeks and the percentile where the change "
+		    "fell.");
+	fputc('\n', f);
+	wrap_printf(f, 2, "personal response: %+.1f%% (lnRR %+.4f), %d%% interval %+.1f%% to %+.1f%%",
+		    curve_pct(pr->mean), pr->mean, lvl, curve_pct(pr->lo), curve_pct(pr->hi));
 	if (pr->n)
-		fprintf(ctx->out, "  the athlete's own deviation from the curve, from %d observation%s "
-			"in %d completed block%s\n  (all of the athlete's); unshrunk %+.1f%% (SE %.4f "
-			"lnRR); weight of the data %.2f, of the prior %.2f\n", pr->n,
-			pr->n == 1 ? "" : "s", rs->nblocks, rs->nblocks == 1 ? "" : "s",
-			curve_pct(pr->raw), pr->raw_se, pr->weight, 1 - pr->weight);
+		wrap_printf(f, 2, "  the athlete's own deviation from the curve, from %d observation%s "
+			    "in %d completed block%s (all of the athlete's); unshrunk %+.1f%% (SE "
+			    "%.4f lnRR); weight of the data %.2f, of the prior %.2f", pr->n,
+			    pr->n == 1 ? "" : "s", rs->nblocks, rs->nblocks == 1 ? "" : "s",
+			    curve_pct(pr->raw), pr->raw_se, pr->weight, 1 - pr->weight);
 	else
-		fprintf(ctx->out, "  no observations yet: this is the prior, centred on the curve\n");
+		wrap_printf(f, 2, "  no observations yet: this is the prior, centred on the curve");
 	cmd_print_caution(ctx);
 }
 
@@ -213,16 +232,16 @@ done:
 const struct sd_cmd cmd_response = {
 	.name = "response",
 	.summary = "did the athlete respond as predicted? observed vs predicted gains per block",
-	.usage = "response ATHLETE [--block ID] [--priors] [--prior-sd SD] [--test-error SD]\n"
-		 "                  [--window DAYS]\n"
-		 "  for each completed block and tested lift with a test near the block's start and\n"
-		 "  one near its end: observed change, the curve's prediction for the dose of the\n"
-		 "  lift's prime movers, and the observation's percentile; then the athlete's\n"
+	.usage = "response ATHLETE [--block ID] [--priors] [--prior-sd SD]\n"
+		 "                 [--test-error SD] [--window DAYS] [--wide]\n"
+		 "  for each completed block and tested lift with a test near the block's start\n"
+		 "  and one near its end: observed change, the curve's prediction for the dose of\n"
+		 "  the lift's prime movers, and the observation's percentile; then the athlete's\n"
 		 "  personal response: the posterior of their own deviation from the curve in a\n"
-		 "  hierarchical model (athlete, block, test error; the curve's error shared by all)\n"
-		 "  whose athlete and block variances are estimated by REML from every athlete's\n"
-		 "  observations once at least 10 athletes have them and 5 have two or more blocks,\n"
-		 "  else the stated priors (the output says which)",
+		 "  hierarchical model (athlete, block, test error; the curve's error shared by\n"
+		 "  all) whose athlete and block variances are estimated by REML from every\n"
+		 "  athlete's observations once at least 10 athletes have them and 5 have two or\n"
+		 "  more blocks, else the stated priors (the output says which)",
 	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,
 	.exec = exec_response,
 	.opts = opts,

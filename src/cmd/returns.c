@@ -1,5 +1,6 @@
 /* returns: what moving from a to b weekly fractional sets buys, for a grid of doses, and the
  * practical plateau. */
+#include <stddef.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -8,7 +9,7 @@
 
 extern const struct sd_cmd cmd_returns;
 
-#define MAX_DOSES 32
+#define MAX_DOSES RET_MAX_DOSES
 
 _Static_assert((int)RET_TABLE == (int)SD_FMT_TABLE && (int)RET_CSV == (int)SD_FMT_CSV &&
 	       (int)RET_JSON == (int)SD_FMT_JSON, "returns formats follow SD_FMT_*");
@@ -33,9 +34,17 @@ static int parse_doses(const char *s, double *d, int *n, double max, struct sd_e
 	return 0;
 }
 
+struct returns_opts {
+	const char *doses;
+	int wide;
+};
+
 static const struct sd_optdef opts[] = {
-	{ "doses", OPT_STR, 0, 0, 0, NULL, "LIST",
+	{ "doses", OPT_STR, 0, 0, offsetof(struct returns_opts, doses), NULL, "LIST",
 	  "weekly fractional sets to compare, A,B,... (default 0,1,...,30 in steps)" },
+	{ "wide", OPT_FLAG, 0, 0, offsetof(struct returns_opts, wide), NULL, NULL,
+	  "the grid in one piece (by default, panels of at most the\n"
+	  "terminal's width, 80 columns when not a terminal)" },
 };
 
 static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
@@ -43,16 +52,16 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 	static const double dflt[] = { 0, 1, 2, 3, 4, 5, 6, 8, 10, 12, 15, 20, 25, 30 };
 	double d[MAX_DOSES];
 	int n = 0;
-	const char *doses = NULL;
+	struct returns_opts o = { NULL, 0 };
 	const struct sd_profile *p = &ctx->profile;
 	struct sd_covars cov = app_covars(ctx, 0);
 	double plateau = curve_plateau(p, &cov, 1.0);
 
-	if ((argc = opt_parse("returns", opts, OPT_N(opts), &doses, argc, argv, e)) < 0)
+	if ((argc = opt_parse("returns", opts, OPT_N(opts), &o, argc, argv, e)) < 0)
 		return -1;
 	if (argc > 1)
 		return sd_usage(e, "returns takes no arguments besides options, got '%s'", argv[1]);
-	if (doses && parse_doses(doses, d, &n, p->dose_max, e))
+	if (o.doses && parse_doses(o.doses, d, &n, p->dose_max, e))
 		return -1;
 	if (!n)
 		for (size_t i = 0; i < sizeof dflt / sizeof *dflt && dflt[i] <= p->dose_max; i++)
@@ -65,7 +74,7 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 		for (int j = i + 1; j < n; j++)
 			curve_delta(p, &cov, d[i], d[j], ctx->opt.level, 0, &dl[i * n + j]);
 	curve_context_note(p, &cov, note, sizeof note);
-	struct returns_view v = { p, cov, ctx->opt.level, plateau, d, n, dl, note };
+	struct returns_view v = { p, cov, ctx->opt.level, plateau, d, n, dl, note, o.wide };
 	if (returns_out_print(ctx->out, &v, ctx->opt.format))
 		return sd_fail(e, "out of memory");
 	cmd_print_caution(ctx);
@@ -75,7 +84,7 @@ static int exec_returns(struct sd_ctx *ctx, int argc, char **argv, struct sd_err
 const struct sd_cmd cmd_returns = {
 	.name = "returns",
 	.summary = "what more or fewer weekly sets buy, and the practical plateau",
-	.usage = "returns [--doses A,B,...]",
+	.usage = "returns [--doses A,B,...] [--wide]",
 	.flags = CMD_PROFILE,
 	.exec = exec_returns,
 	.opts = opts,

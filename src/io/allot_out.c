@@ -9,6 +9,7 @@
 #include "jsonout.h"
 
 #include "audit_out.h"
+#include "wrap.h"
 #include "table.h"
 
 static double pct(double y)
@@ -187,12 +188,13 @@ static void print_table(FILE *f, const struct allot_view *v, int color)
 	fprintf(f, "the last set bought %.4f; one more set would buy %.4f (priority x lnRR; the SWC is "
 		"%.4f)\n", r->last_set, r->next_set, v->prof->swc);
 	for (int i = 0; i < ALLOT_NOTES && v->notes[i]; i++)
-		fprintf(f, "note: %s\n", v->notes[i]);
+		wrap_printf(f, 6, "note: %s", v->notes[i]);
 	for (int i = 0; i < a->nwarn; i++)
 		if (shown(&a->warn[i]))
-			fprintf(f, "%swarning:%s %s\n", color ? "\033[33m" : "", color ? "\033[0m" : "",
-				a->warn[i].text);
-	fprintf(f, "\n%s\n", aout_caution);
+			wrap_printf(f, 9, "%swarning:%s %s", color ? "\033[33m" : "",
+				    color ? "\033[0m" : "", a->warn[i].text);
+	fputc('\n', f);
+	aout_caution_text(f);
 }
 
 static int print_csv(FILE *f, const struct allot_view *v)

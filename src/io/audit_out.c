@@ -8,6 +8,7 @@
 #include <cjson/cJSON.h>
 
 #include "jsonout.h"
+#include "wrap.h"
 
 #include "../core/curve.h"
 
@@ -37,18 +38,32 @@ const char *const aout_band_lines[3] = {
 	"athlete  one athlete (adds the profile's between-athlete variance of the response)",
 };
 
+/* Continuation lines of a band's text start under the text, after the level's name. */
+#define BAND_INDENT 11
+
 void aout_bands_text(FILE *f, int level_pct)
 {
 	fprintf(f, "%d%% intervals for three levels:\n", level_pct);
 	for (int i = 0; i < 3; i++)
-		fprintf(f, "  %s\n", aout_band_lines[i]);
+		wrap_printf(f, BAND_INDENT, "  %s", aout_band_lines[i]);
+}
+
+void aout_plus1_text(FILE *f)
+{
+	wrap_printf(f, 7, "+1set: percentage points one more weekly set adds on the average curve, "
+		    "with its interval.");
 }
 
 void aout_profile_line(FILE *f, const struct sd_profile *p)
 {
 	char line[300];
 	profile_oneline(p, line, sizeof line);
-	fprintf(f, "%s\n", line);
+	wrap_printf(f, 2, "%s", line);
+}
+
+void aout_caution_text(FILE *f)
+{
+	wrap_printf(f, 0, "%s", aout_caution);
 }
 
 static struct sd_table *dose_table(const struct sd_audit *a)
@@ -71,36 +86,71 @@ static struct sd_table *dose_table(const struct sd_audit *a)
 	return t;
 }
 
+/* '~': left out of the narrow table (table.h). */
 static const char *const gain_heads[] = {
-	"<muscle", "gain%", "curve_lo", "curve_hi", "group_lo", "group_hi", "athlete_lo",
-	"athlete_hi", "+1set%", "+1set_lo", "+1set_hi",
+	"gain%", "curve_lo", "curve_hi", "~group_lo", "~group_hi", "athlete_lo", "athlete_hi",
+	"+1set%", "~+1set_lo", "~+1set_hi",
 };
+#define NGAIN ((int)(sizeof gain_heads / sizeof gain_heads[0]))
 
-/* The gain columns of one row, from column c on: gain, the three intervals, +1 set. */
-static int gain_cells(struct sd_table *t, int c, const struct sd_audit_row *r, int precise)
+struct sd_table *aout_gain_table(const char *key, int with_zone)
+{
+	const char *heads[NGAIN + 2];
+	heads[0] = key;
+	for (int i = 0; i < NGAIN; i++)
+		heads[i + 1] = gain_heads[i];
+	heads[NGAIN + 1] = "<zone";
+	return tbl_new(NGAIN + 1 + !!with_zone, heads);
+}
+
+int aout_gain_cells(struct sd_table *t, int c, const struct sd_point *pt,
+		    const struct sd_plus1 *p1, int precise)
 {
 	const char *g = precise ? "%.3f" : "%.1f", *m = precise ? "%.4f" : "%.2f";
-	tbl_set(t, c++, g, pct(r->pt.y));
-	tbl_set(t, c++, g, pct(r->pt.ci_lo));
-	tbl_set(t, c++, g, pct(r->pt.ci_hi));
-	tbl_set(t, c++, g, pct(r->pt.group_lo));
-	tbl_set(t, c++, g, pct(r->pt.group_hi));
-	tbl_set(t, c++, g, pct(r->pt.ath_lo));
-	tbl_set(t, c++, g, pct(r->pt.ath_hi));
-	tbl_set(t, c++, m, r->plus1.pct);
-	tbl_set(t, c++, m, r->plus1.lo);
-	tbl_set(t, c++, m, r->plus1.hi);
+	tbl_set(t, c++, g, pct(pt->y));
+	tbl_set(t, c++, g, pct(pt->ci_lo));
+	tbl_set(t, c++, g, pct(pt->ci_hi));
+	tbl_set(t, c++, g, pct(pt->group_lo));
+	tbl_set(t, c++, g, pct(pt->group_hi));
+	tbl_set(t, c++, g, pct(pt->ath_lo));
+	tbl_set(t, c++, g, pct(pt->ath_hi));
+	tbl_set(t, c++, m, p1->pct);
+	tbl_set(t, c++, m, p1->lo);
+	tbl_set(t, c++, m, p1->hi);
 	return c;
 }
 
 static struct sd_table *gain_table(const struct sd_audit *a)
 {
-	struct sd_table *t = tbl_new(11, gain_heads);
+	struct sd_table *t = aout_gain_table("<muscle", 0);
 	for (int m = 0; t && m < SD_NMUSCLES; m++) {
 		if (tbl_row(t))
 			break;
 		tbl_set(t, 0, "%s", muscle_name(m));
-		gain_cells(t, 1, &a->row[m], 0);
+		aout_gain_cells(t, 1, &a->row[m].pt, &a->row[m].plus1, 0);
+	}
+	return t;
+}
+
+/* The exercises behind each muscle's total; the muscle named on its first row only. */
+static struct sd_table *source_table(const struct sd_audit_info *in)
+{
+	static const char *const heads[] = { "<muscle", "<exercise", "direct", "indirect",
+					     "fractional" };
+	struct sd_table *t = tbl_new(5, heads);
+	for (int m = 0; t && m < SD_NMUSCLES; m++) {
+		int n;
+		const struct sd_source *s = vol_sources(&in->audit->vol, m, &n);
+		for (int i = 0; i < n; i++) {
+			if (tbl_row(t))
+				return t;
+			if (!i)
+				tbl_set(t, 0, "%s", muscle_name(m));
+			tbl_set(t, 1, "%s", in->lib->ex[s[i].ex].name);
+			tbl_set(t, 2, "%g", s[i].direct);
+			tbl_set(t, 3, "%g", s[i].indirect);
+			tbl_set(t, 4, "%.1f", s[i].fractional);
+		}
 	}
 	return t;
 }
@@ -109,31 +159,43 @@ void aout_report(FILE *f, const struct sd_audit_info *in, int color)
 {
 	const struct sd_audit *a = in->audit;
 	const struct sd_program *p = in->prog;
-	int lvl = (int)lround(a->level * 100);
+	int lvl = (int)lround(a->level * 100), mode = tbl_mode(0, in->wide);
 	struct sd_table *t;
 
-	fprintf(f, "%s%s%s (%s)\n", color ? "\033[1m" : "", p->name, color ? "\033[0m" : "", in->label);
+	fputs(color ? "\033[1m" : "", f);
+	wrap_printf(f, 2, "%s (%s)", p->name, in->label);
+	fputs(color ? "\033[0m" : "", f);
 	if (in->athlete)
-		fprintf(f, "athlete: %s\n", in->athlete);
-	fprintf(f, "%d day%s, %d hard sets a week; %s, %g-week block%s; profile %s; plateau at %g "
-		"weekly fractional sets (SWC %.1f%%)\n\n", p->ndays, p->ndays == 1 ? "" : "s",
-		a->vol.hard_sets, status_name(a), a->cov.weeks,
-		a->beyond ? " (beyond the evidence)" : "", in->prof->name, a->plateau,
-		pct(in->prof->swc));
+		wrap_printf(f, 2, "athlete: %s", in->athlete);
+	wrap_printf(f, 2, "%d day%s, %d hard sets a week; %s, %g-week block%s; profile %s; plateau "
+		    "at %g weekly fractional sets (SWC %.1f%%)", p->ndays, p->ndays == 1 ? "" : "s",
+		    a->vol.hard_sets, status_name(a), a->cov.weeks,
+		    a->beyond ? " (beyond the evidence)" : "", in->prof->name, a->plateau,
+		    pct(in->prof->swc));
+	fputc('\n', f);
 	if ((t = dose_table(a)))
-		tbl_print(t, f, 0);
+		tbl_print(t, f, mode);
 	tbl_free(t);
 	fprintf(f, "\npredicted 1RM change over the block (%%), %d%% intervals\n", lvl);
 	if ((t = gain_table(a)))
-		tbl_print(t, f, 0);
+		tbl_print(t, f, mode);
 	tbl_free(t);
+	if (in->by_exercise && in->lib) {
+		fputc('\n', f);
+		wrap_printf(f, 2, "where the fractional sets come from (hard sets a week; a direct set "
+			    "counts %g, an indirect set %g)", in->prof->w_direct, in->prof->w_indirect);
+		if ((t = source_table(in)))
+			tbl_print(t, f, mode);
+		tbl_free(t);
+	}
 	fputc('\n', f);
 	aout_bands_text(f, lvl);
-	fprintf(f, "+1set: percentage points one more weekly set adds on the average curve, with its "
-		"interval.\n");
+	aout_plus1_text(f);
+	if (!in->wide)
+		wrap_printf(f, 2, "--wide adds the group interval and the +1set interval.");
 	for (int i = 0; i < a->nwarn; i++)
-		fprintf(f, "%swarning:%s %s\n", color ? "\033[33m" : "", color ? "\033[0m" : "",
-			a->warn[i].text);
+		wrap_printf(f, 9, "%swarning:%s %s", color ? "\033[33m" : "", color ? "\033[0m" : "",
+			    a->warn[i].text);
 }
 
 static const char *const muscle_heads[] = {
@@ -164,9 +226,35 @@ int aout_muscle_rows(struct sd_table *t, const struct sd_audit_info *in, int wit
 		tbl_set(t, c++, "%.1f", r->dose.fractional);
 		tbl_set(t, c++, "%.1f", r->dose.max_session);
 		tbl_set(t, c++, "%d", r->dose.sessions);
-		c = gain_cells(t, c, r, 1);
+		c = aout_gain_cells(t, c, &r->pt, &r->plus1, 1);
 		tbl_set(t, c++, "%s", zone_name(r->zone));
 		tbl_set(t, c++, "%s", curve_beyond_names(r->pt.beyond, beyond, sizeof beyond));
+	}
+	return 0;
+}
+
+struct sd_table *aout_source_table(void)
+{
+	static const char *const heads[] = { "<program", "<muscle", "<exercise", "direct",
+					     "indirect", "fractional" };
+	return tbl_new(6, heads);
+}
+
+int aout_source_rows(struct sd_table *t, const struct sd_audit_info *in)
+{
+	for (int m = 0; m < SD_NMUSCLES; m++) {
+		int n;
+		const struct sd_source *s = vol_sources(&in->audit->vol, m, &n);
+		for (int i = 0; i < n; i++) {
+			if (tbl_row(t))
+				return -1;
+			tbl_set(t, 0, "%s", in->label);
+			tbl_set(t, 1, "%s", muscle_name(m));
+			tbl_set(t, 2, "%s", in->lib->ex[s[i].ex].name);
+			tbl_set(t, 3, "%g", s[i].direct);
+			tbl_set(t, 4, "%g", s[i].indirect);
+			tbl_set(t, 5, "%.2f", s[i].fractional);
+		}
 	}
 	return 0;
 }
@@ -344,8 +432,28 @@ int aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
 	return 0;
 }
 
-static cJSON *muscle_json(const struct sd_audit *a, int m)
+/* The exercises behind a muscle's total (--by-exercise). */
+static cJSON *sources_json(const struct sd_audit_info *in, int m)
 {
+	int n;
+	const struct sd_source *s = vol_sources(&in->audit->vol, m, &n);
+	cJSON *arr = cJSON_CreateArray();
+	for (int i = 0; arr && i < n; i++) {
+		cJSON *o = cJSON_CreateObject();
+		if (!o)
+			break;
+		cJSON_AddStringToObject(o, "exercise", in->lib->ex[s[i].ex].name);
+		json_num(o, "direct", s[i].direct, 2);
+		json_num(o, "indirect", s[i].indirect, 2);
+		json_num(o, "fractional", s[i].fractional, 2);
+		cJSON_AddItemToArray(arr, o);
+	}
+	return arr;
+}
+
+static cJSON *muscle_json(const struct sd_audit_info *in, int m)
+{
+	const struct sd_audit *a = in->audit;
 	const struct sd_audit_row *r = &a->row[m];
 	cJSON *o = cJSON_CreateObject();
 	if (!o)
@@ -356,6 +464,8 @@ static cJSON *muscle_json(const struct sd_audit *a, int m)
 	json_num(o, "not_counted", r->dose.easy, 2);
 	json_audit_row(o, r);
 	json_num(o, "se", r->pt.se, 6);
+	if (in->by_exercise && in->lib)
+		cJSON_AddItemToObject(o, "sources", sources_json(in, m));
 	return o;
 }
 
@@ -386,7 +496,7 @@ int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
 	json_num(o, "plateau", a->plateau, 2);
 	ms = cJSON_AddArrayToObject(o, "muscles");
 	for (int m = 0; ms && m < SD_NMUSCLES; m++)
-		cJSON_AddItemToArray(ms, muscle_json(a, m));
+		cJSON_AddItemToArray(ms, muscle_json(in, m));
 	ws = cJSON_AddArrayToObject(o, "warnings");
 	for (int i = 0; ws && i < a->nwarn; i++) {
 		cJSON *w = cJSON_CreateObject();

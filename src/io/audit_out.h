@@ -6,6 +6,7 @@
 #include <stdio.h>
 
 #include "../core/audit.h"
+#include "../core/library.h"
 #include "../core/profile.h"
 #include "table.h"
 
@@ -16,13 +17,30 @@ struct sd_audit_info {
 	const struct sd_audit *audit;
 	const char *athlete;        /* or NULL */
 	int overdue_days;           /* with athlete: days an open block ran past its planned end */
+	int wide;                   /* table output with every column (--wide) */
+	const struct sd_library *lib;  /* for by_exercise: the exercises' names */
+	int by_exercise;            /* where each muscle's sets come from (--by-exercise) */
 };
 
-/* The full report of one audit as aligned text. */
+/* The full report of one audit as aligned text; prose wrapped to the output's width. */
 void aout_report(FILE *f, const struct sd_audit_info *in, int color);
 /* One CSV block of one audit: a row per muscle, with the program label as first column. */
 struct sd_table *aout_muscle_table(int with_label);
 int aout_muscle_rows(struct sd_table *t, const struct sd_audit_info *in, int with_label);
+/* The same for --by-exercise: a row per muscle and exercise (program, muscle, exercise, direct,
+ * indirect, fractional), the muscles in their usual order, the largest share first. */
+struct sd_table *aout_source_table(void);
+int aout_source_rows(struct sd_table *t, const struct sd_audit_info *in);
+
+/* The curve's columns as every table shows them: gain%, the three intervals, +1 set with its
+ * interval. The narrow table keeps gain%, the curve and athlete intervals and +1set%; the
+ * group interval and the +1 set interval are --wide, CSV and JSON only. A table of `key`
+ * (the first column) and these, and a trailing zone column when with_zone. */
+struct sd_table *aout_gain_table(const char *key, int with_zone);
+/* Sets the gain columns of the current row from column c; returns the next column. precise:
+ * the digits of CSV (3 for percents, 4 for +1 set), else those of the table (1 and 2). */
+int aout_gain_cells(struct sd_table *t, int c, const struct sd_point *pt,
+		    const struct sd_plus1 *p1, int precise);
 /* Summary lines, streamed (10,000 programs must not be held in memory): one line per
  * program (and athlete) and muscle. Widths are fixed up front by the caller. */
 struct sd_sumout {
@@ -57,7 +75,11 @@ extern const char aout_caution[];
 extern const char aout_bands_legend[];
 extern const char *const aout_band_lines[3];
 void aout_bands_text(FILE *f, int level_pct);
-/* The profile's provenance in one line (profile_oneline). */
+/* The line under tables that show +1 set. */
+void aout_plus1_text(FILE *f);
+/* The profile's provenance (profile_oneline), wrapped. */
 void aout_profile_line(FILE *f, const struct sd_profile *p);
+/* The caution, wrapped to the output's width. */
+void aout_caution_text(FILE *f);
 
 #endif

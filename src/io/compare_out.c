@@ -7,6 +7,7 @@
 #include <cjson/cJSON.h>
 
 #include "jsonout.h"
+#include "wrap.h"
 
 #include "audit_out.h"
 #include "table.h"
@@ -134,15 +135,15 @@ void cmp_out_table(FILE *f, const struct cmp_view *v, int color)
 	struct sd_table *t;
 	int lvl = (int)lround(v->level * 100);
 
-	fprintf(f, "%sComparing %d programs for one athlete%s: %s, %g-week block; profile %s; SWC "
-		"%.1f%%; %d%% intervals\n", color ? "\033[1m" : "", v->n, color ? "\033[0m" : "",
+	wrap_printf(f, 2, "%sComparing %d programs for one athlete%s: %s, %g-week block; profile %s; "
+		    "SWC %.1f%%; %d%% intervals", color ? "\033[1m" : "", v->n, color ? "\033[0m" : "",
 		a0->cov.trained >= 0.5 ? "trained" : "untrained", a0->cov.weeks, v->prof->name,
 		pct(v->prof->swc), lvl);
 	for (int i = 0; i < v->n; i++)
 		fprintf(f, "  %c  %s (%s)\n", key(i), v->prog[i].name, v->label[i]);
 	char note[240];
 	if (curve_context_note(v->prof, &a0->cov, note, sizeof note))
-		fprintf(f, "%swarning:%s %s\n", color ? "\033[33m" : "", color ? "\033[0m" : "", note);
+		wrap_printf(f, 9, "%swarning:%s %s", color ? "\033[33m" : "", color ? "\033[0m" : "", note);
 	fprintf(f, "\nweekly fractional sets and predicted gain (%%) per muscle\n");
 	if ((t = side_by_side(v)))
 		tbl_print(t, f, 0);
@@ -164,14 +165,14 @@ void cmp_out_table(FILE *f, const struct cmp_view *v, int color)
 	for (int k = 0; k < CMP_NDECISIONS; k++)
 		fprintf(f, "  %-11s %s\n", cmp_decision_name((enum cmp_decision)k),
 			cmp_decision_meaning((enum cmp_decision)k));
-	fprintf(f, "%s\n", interval_note(v->prof));
+	wrap_printf(f, 0, "%s", interval_note(v->prof));
 	if (v->note)
-		fprintf(f, "note: %s\n", v->note);
+		wrap_printf(f, 6, "note: %s", v->note);
 	for (int i = 0; i < v->n; i++)
 		for (int w = 0; w < v->audit[i].nwarn; w++)
 			if (v->audit[i].warn[w].muscle >= 0)
-				fprintf(f, "%swarning:%s %c: %s\n", color ? "\033[33m" : "",
-					color ? "\033[0m" : "", key(i), v->audit[i].warn[w].text);
+				wrap_printf(f, 9, "%swarning:%s %c: %s", color ? "\033[33m" : "",
+					    color ? "\033[0m" : "", key(i), v->audit[i].warn[w].text);
 }
 
 /* One table (one header) for everything: each row says what it is in `row` ("muscle": one

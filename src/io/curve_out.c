@@ -8,14 +8,12 @@
 #include "audit_out.h"
 #include "jsonout.h"
 #include "table.h"
+#include "wrap.h"
 
 int curve_out_print(FILE *f, const struct sd_profile *p, const struct sd_covars *cov, double level,
-		    double step, int fmt)
+		    double step, int wide, int fmt)
 {
-	static const char *const heads[] = { "sets", "gain%", "curve_lo", "curve_hi", "group_lo",
-					     "group_hi", "athlete_lo", "athlete_hi", "+1set%",
-					     "+1set_lo", "+1set_hi", "<zone" };
-	struct sd_table *t = tbl_new(12, heads);
+	struct sd_table *t = aout_gain_table("sets", 1);
 	double plateau = curve_plateau(p, cov, 1.0);
 	cJSON *arr = NULL;
 	char note[240];
@@ -51,17 +49,8 @@ int curve_out_print(FILE *f, const struct sd_profile *p, const struct sd_covars 
 		}
 		tbl_row(t);
 		tbl_set(t, 0, "%g", x);
-		tbl_set(t, 1, csv ? "%.3f" : "%.1f", curve_pct(pt.y));
-		tbl_set(t, 2, csv ? "%.3f" : "%.1f", curve_pct(pt.ci_lo));
-		tbl_set(t, 3, csv ? "%.3f" : "%.1f", curve_pct(pt.ci_hi));
-		tbl_set(t, 4, csv ? "%.3f" : "%.1f", curve_pct(pt.group_lo));
-		tbl_set(t, 5, csv ? "%.3f" : "%.1f", curve_pct(pt.group_hi));
-		tbl_set(t, 6, csv ? "%.3f" : "%.1f", curve_pct(pt.ath_lo));
-		tbl_set(t, 7, csv ? "%.3f" : "%.1f", curve_pct(pt.ath_hi));
-		tbl_set(t, 8, csv ? "%.4f" : "%.2f", mg.pct);
-		tbl_set(t, 9, csv ? "%.4f" : "%.2f", mg.lo);
-		tbl_set(t, 10, csv ? "%.4f" : "%.2f", mg.hi);
-		tbl_set(t, 11, "%s", zone_name(curve_zone(p, plateau, x)));
+		int c = aout_gain_cells(t, 1, &pt, &mg, csv);
+		tbl_set(t, c, "%s", zone_name(curve_zone(p, plateau, x)));
 	}
 	if (arr) {
 		cJSON *root = cJSON_CreateObject();
@@ -81,17 +70,22 @@ int curve_out_print(FILE *f, const struct sd_profile *p, const struct sd_covars 
 			return -1;
 		}
 	} else {
-		if (fmt == CURVE_TABLE)
-			fprintf(f, "%s; %s, %g-week block; %.0f%% intervals; plateau at %g weekly "
-				"fractional sets\n%s%s%s\n", p->name, cov->trained >= 0.5 ? "trained" :
-				"untrained", cov->weeks, level * 100, plateau,
-				note[0] ? "warning: " : "", note, note[0] ? "\n" : "");
-		tbl_print(t, f, csv);
+		if (fmt == CURVE_TABLE) {
+			wrap_printf(f, 2, "%s; %s, %g-week block; %.0f%% intervals; plateau at "
+				    "%g weekly fractional sets", p->name, cov->trained >= 0.5 ?
+				    "trained" : "untrained", cov->weeks, level * 100, plateau);
+			if (note[0])
+				wrap_printf(f, 9, "warning: %s", note);
+			fputc('\n', f);
+		}
+		tbl_print(t, f, tbl_mode(csv, wide));
 		if (fmt == CURVE_TABLE) {
 			fputc('\n', f);
 			aout_bands_text(f, (int)lround(level * 100));
-			fprintf(f, "+1set: percentage points one more weekly set adds on the "
-				"average curve, with its interval.\n");
+			aout_plus1_text(f);
+			if (!wide)
+				wrap_printf(f, 2, "--wide adds the group interval and the +1set "
+					    "interval.");
 		}
 	}
 	tbl_free(t);

@@ -9,8 +9,8 @@
 
 enum { CURVE_TABLE, CURVE_CSV, CURVE_JSON };
 
-/* 0, or -1 when out of memory. */
+/* 0, or -1 when out of memory. wide: every column in the table (the default fits 80). */
 int curve_out_print(FILE *f, const struct sd_profile *p, const struct sd_covars *cov, double level,
-		    double step, int fmt);
+		    double step, int wide, int fmt);
 
 #endif

@@ -11,7 +11,7 @@
 #include "jsonout.h"
 
 struct sd_rec {
-	int fmt, ncols;
+	int fmt, ncols, wide;
 	struct sd_table *t;       /* table and CSV */
 	cJSON *arr, *cur;         /* JSON */
 	char **key;
@@ -37,8 +37,9 @@ struct sd_rec *rec_new(int ncols, const char *const *headers, int fmt)
 	if (!r->arr || !r->key || !r->text)
 		goto fail;
 	for (int i = 0; i < ncols; i++) {
-		r->text[i] = headers[i][0] == '<';
-		if (!(r->key[i] = strdup(headers[i] + r->text[i])))
+		const char *h = headers[i] + (headers[i][0] == '~');   /* every column is in JSON */
+		r->text[i] = h[0] == '<';
+		if (!(r->key[i] = strdup(h + r->text[i])))
 			goto fail;
 	}
 	return r;
@@ -97,7 +98,7 @@ void rec_print(const struct sd_rec *r, FILE *f)
 	char *s;
 
 	if (r->t) {
-		tbl_print(r->t, f, r->fmt == REC_CSV);
+		tbl_print(r->t, f, r->fmt == REC_CSV ? TBL_CSV : r->wide ? TBL_WIDE : TBL_TEXT);
 		return;
 	}
 	s = json_print(r->arr, 1);
@@ -118,6 +119,11 @@ void rec_print_json_object(const struct sd_rec *r, const char *key, FILE *f,
 		fprintf(f, "  \"%s\": %s,\n", extra[i], extra[i + 1]);
 	fprintf(f, "  \"%s\": %s\n}\n", key, s ? s : "[]");
 	free(s);
+}
+
+void rec_wide(struct sd_rec *r, int wide)
+{
+	r->wide = wide;
 }
 
 int rec_rows(const struct sd_rec *r)

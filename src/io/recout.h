@@ -13,8 +13,11 @@ struct sd_rec;
 
 enum { REC_TABLE, REC_CSV, REC_JSON };   /* the same numbers as SD_FMT_* in cmd/cmd.h */
 
-/* Headers as in tbl_new ('<' marks a left-aligned text column); fmt is REC_*. */
+/* Headers as in tbl_new ('<' marks a left-aligned text column, '~' one the narrow table
+ * leaves out); fmt is REC_*. */
 struct sd_rec *rec_new(int ncols, const char *const *headers, int fmt);
+/* Table output with every column (--wide); CSV and JSON always have every column. */
+void rec_wide(struct sd_rec *r, int wide);
 /* Starts a row; 0 or -1 (out of memory). */
 int rec_row(struct sd_rec *r);
 /* Sets a cell of the current row; 0 or -1. */

@@ -5,6 +5,7 @@
 #include "audit_out.h"
 #include "jsonout.h"
 #include "table.h"
+#include "wrap.h"
 
 static const struct sd_delta *at(const struct returns_view *v, int i, int j)
 {
@@ -65,38 +66,50 @@ static int print_long(FILE *f, const struct returns_view *v, int json)
 }
 
 /* The grid: row = from, column = to; each cell the extra gain in percent, marked '*' when it
- * exceeds the SWC and '+' when only its interval excludes zero. */
-static void print_grid(FILE *f, const struct returns_view *v)
+ * exceeds the SWC and '+' when only its interval excludes zero; in panels of at most the
+ * output's width, or in one piece (wide). */
+static int print_grid(FILE *f, const struct returns_view *v)
 {
-	fprintf(f, "Extra gain (%%, as a ratio of gains) from moving FROM -> TO weekly fractional "
-		"sets\n%s, %g-week block; the average curve. '*' beyond the SWC (%.1f%%), '+' interval "
-		"excludes 0 only, '.' neither.\n%s%s%s\n     from\\to", v->cov.trained >= 0.5 ?
-		"trained" : "untrained", v->cov.weeks, curve_pct(v->prof->swc),
-		v->note[0] ? "warning: " : "", v->note, v->note[0] ? "\n" : "");
-	for (int j = 1; j < v->n; j++)
-		fprintf(f, " %6g", v->dose[j]);
+	const char *heads[RET_MAX_DOSES];
+	char lab[RET_MAX_DOSES][24];
+	struct sd_table *t;
+
+	wrap_printf(f, 0, "Extra gain (%%, as a ratio of gains) from moving FROM -> TO weekly "
+		    "fractional sets");
+	wrap_printf(f, 0, "%s, %g-week block; the average curve. '*' beyond the SWC (%.1f%%), "
+		    "'+' interval excludes 0 only, '.' neither.", v->cov.trained >= 0.5 ? "trained" :
+		    "untrained", v->cov.weeks, curve_pct(v->prof->swc));
+	if (v->note[0])
+		wrap_printf(f, 9, "warning: %s", v->note);
 	fputc('\n', f);
-	for (int i = 0; i < v->n - 1; i++) {
-		fprintf(f, "%11g", v->dose[i]);
-		for (int j = 1; j < v->n; j++) {
-			const struct sd_delta *d = at(v, i, j);
-			if (j <= i)
-				fprintf(f, " %6s", "");
-			else
-				fprintf(f, " %5.1f%c", curve_pct(d->d),
-					d->practical ? '*' : d->statistical ? '+' : '.');
-		}
-		fputc('\n', f);
+	heads[0] = "from\\to";
+	for (int j = 1; j < v->n; j++) {
+		snprintf(lab[j], sizeof lab[j], "%g", v->dose[j]);
+		heads[j] = lab[j];
 	}
-	fprintf(f, "\nPractical plateau: %g weekly fractional sets (from there, no dose up to %g "
-		"adds more than the SWC).\n", v->plateau, v->prof->dose_max);
+	if (!(t = tbl_new(v->n, heads)))
+		return -1;
+	for (int i = 0; i < v->n - 1; i++) {
+		if (tbl_row(t))
+			break;
+		tbl_set(t, 0, "%g", v->dose[i]);
+		for (int j = i + 1; j < v->n; j++) {
+			const struct sd_delta *d = at(v, i, j);
+			tbl_set(t, j, "%.1f%c", curve_pct(d->d),
+				d->practical ? '*' : d->statistical ? '+' : '.');
+		}
+	}
+	tbl_print_panels(t, f, tbl_mode(0, v->wide), v->wide ? 0 : wrap_width(f), 1);
+	tbl_free(t);
+	fputc('\n', f);
+	wrap_printf(f, 0, "Practical plateau: %g weekly fractional sets (from there, no dose up "
+		    "to %g adds more than the SWC).", v->plateau, v->prof->dose_max);
+	return 0;
 }
 
 int returns_out_print(FILE *f, const struct returns_view *v, int fmt)
 {
-	if (fmt == RET_TABLE) {
-		print_grid(f, v);
-		return 0;
-	}
+	if (fmt == RET_TABLE)
+		return print_grid(f, v);
 	return print_long(f, v, fmt == RET_JSON);
 }

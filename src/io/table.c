@@ -10,6 +10,7 @@ struct sd_table {
 	int ncols, nrows, caprows;
 	char **head;
 	int *left;
+	int *narrow_out;  /* '~' columns: left out of the narrow text table */
 	char **cells;   /* nrows x ncols */
 };
 
@@ -21,13 +22,18 @@ struct sd_table *tbl_new(int ncols, const char *const *headers)
 	t->ncols = ncols;
 	t->head = calloc((size_t)ncols, sizeof *t->head);
 	t->left = calloc((size_t)ncols, sizeof *t->left);
-	if (!t->head || !t->left) {
+	t->narrow_out = calloc((size_t)ncols, sizeof *t->narrow_out);
+	if (!t->head || !t->left || !t->narrow_out) {
 		tbl_free(t);
 		return NULL;
 	}
 	for (int i = 0; i < ncols; i++) {
-		t->left[i] = headers[i][0] == '<';
-		if (!(t->head[i] = strdup(headers[i] + t->left[i]))) {
+		const char *h = headers[i];
+		if ((t->narrow_out[i] = *h == '~'))
+			h++;
+		if ((t->left[i] = *h == '<'))
+			h++;
+		if (!(t->head[i] = strdup(h))) {
 			tbl_free(t);
 			return NULL;
 		}
@@ -82,14 +88,14 @@ void tbl_locale(void)
 }
 
 /* Display width of UTF-8 text (muscle names are ASCII, but program and athlete names may not
- * be), so columns line up on a terminal. */
-static int width(const char *s)
+ * be), so columns line up on a terminal. A colour escape (ESC [ ... letter) takes no column. */
+int tbl_width(const char *s)
 {
 	mbstate_t st;
 	int w = 0;
 	const char *p = s;
 
-	while (*p && !(*p & 0x80))   /* plain ASCII, the common case: one column a byte */
+	while (*p && !(*p & 0x80) && *p != '\033')   /* plain ASCII: one column a byte */
 		p++;
 	if (!*p)
 		return (int)(p - s);
@@ -97,7 +103,14 @@ static int width(const char *s)
 	memset(&st, 0, sizeof st);
 	while (*s) {
 		wchar_t wc;
-		size_t n = mbrtowc(&wc, s, MB_CUR_MAX, &st);
+		size_t n;
+		if (s[0] == '\033' && s[1] == '[') {
+			for (s += 2; *s && !(*s >= 0x40 && *s <= 0x7e); s++)
+				;
+			s += !!*s;
+			continue;
+		}
+		n = mbrtowc(&wc, s, MB_CUR_MAX, &st);
 		if (n == (size_t)-1 || n == (size_t)-2 || n == 0) {
 			w++;
 			s++;
@@ -132,44 +145,116 @@ static const char *cell(const struct sd_table *t, int r, int c)
 	return s ? s : "";
 }
 
-void tbl_print(const struct sd_table *t, FILE *f, int csv)
+int tbl_mode(int csv, int wide)
 {
-	if (csv) {
-		for (int r = -1; r < t->nrows; r++) {
-			for (int c = 0; c < t->ncols; c++) {
-				if (c)
-					fputc(',', f);
-				tbl_csv_field(f, cell(t, r, c));
-			}
-			fputc('\n', f);
-		}
-		return;
-	}
-	int *w = calloc((size_t)t->ncols, sizeof *w);
-	if (!w)
-		return;
-	for (int r = -1; r < t->nrows; r++)
-		for (int c = 0; c < t->ncols; c++) {
-			int cw = width(cell(t, r, c));
-			if (cw > w[c])
-				w[c] = cw;
-		}
+	return csv ? TBL_CSV : wide ? TBL_WIDE : TBL_TEXT;
+}
+
+static void print_csv(const struct sd_table *t, FILE *f)
+{
 	for (int r = -1; r < t->nrows; r++) {
 		for (int c = 0; c < t->ncols; c++) {
-			const char *s = cell(t, r, c);
-			int pad = w[c] - width(s);
-			int last = c == t->ncols - 1;
 			if (c)
-				fputs("  ", f);
-			if (!t->left[c])
-				fprintf(f, "%*s", pad, "");
-			fputs(s, f);
-			if (t->left[c] && !last)
-				fprintf(f, "%*s", pad, "");
+				fputc(',', f);
+			tbl_csv_field(f, cell(t, r, c));
 		}
 		fputc('\n', f);
 	}
+}
+
+/* Display widths of the columns shown in this mode; 0 for a column left out (w[c] < 0). */
+static int *col_widths(const struct sd_table *t, int mode)
+{
+	int *w = calloc((size_t)t->ncols, sizeof *w);
+	if (!w)
+		return NULL;
+	for (int c = 0; c < t->ncols; c++) {
+		if (mode == TBL_TEXT && t->narrow_out[c]) {
+			w[c] = -1;
+			continue;
+		}
+		for (int r = -1; r < t->nrows; r++) {
+			int cw = tbl_width(cell(t, r, c));
+			if (cw > w[c])
+				w[c] = cw;
+		}
+	}
+	return w;
+}
+
+/* Rows of the columns in show[] (a list of column numbers), skipping a row whose columns
+ * from `skip_from` on are all empty when skip_from > 0. */
+static void print_cols(const struct sd_table *t, FILE *f, const int *w, const int *show, int n,
+		       int skip_from)
+{
+	for (int r = -1; r < t->nrows; r++) {
+		if (r >= 0 && skip_from > 0) {
+			int any = 0;
+			for (int i = skip_from; i < n && !any; i++)
+				any = *cell(t, r, show[i]) != '\0';
+			if (!any)
+				continue;
+		}
+		/* Padding is written only before text, so no line ends in blanks. */
+		int pend = 0;
+		for (int i = 0; i < n; i++) {
+			int c = show[i];
+			const char *s = cell(t, r, c);
+			int pad = w[c] - tbl_width(s);
+			pend += i ? 2 : 0;
+			if (!t->left[c])
+				pend += pad;
+			if (*s) {
+				fprintf(f, "%*s%s", pend, "", s);
+				pend = 0;
+			}
+			if (t->left[c])
+				pend += pad;
+		}
+		fputc('\n', f);
+	}
+}
+
+void tbl_print_panels(const struct sd_table *t, FILE *f, int mode, int width, int keep)
+{
+	int *w, *show, nkeep = 0, kw = 0;
+
+	if (mode == TBL_CSV) {
+		print_csv(t, f);
+		return;
+	}
+	w = col_widths(t, mode);
+	show = calloc((size_t)t->ncols, sizeof *show);
+	if (!w || !show)
+		goto out;
+	for (int c = 0; c < t->ncols && c < keep; c++)
+		if (w[c] >= 0) {
+			show[nkeep++] = c;
+			kw += w[c] + 2;
+		}
+	/* Each panel takes the next columns that fit beside the kept ones (at least one). */
+	for (int c = nkeep ? show[nkeep - 1] + 1 : 0, first = 1; c < t->ncols || first; first = 0) {
+		int n = nkeep, used = kw;
+		for (; c < t->ncols; c++) {
+			if (w[c] < 0)
+				continue;
+			if (n > nkeep && width > 0 && used + w[c] > width)
+				break;
+			show[n++] = c;
+			used += w[c] + 2;
+		}
+		if (!first)
+			fputc('\n', f);
+		print_cols(t, f, w, show, n, c < t->ncols || !first ? nkeep : 0);
+	}
+out:
 	free(w);
+	free(show);
+}
+
+void tbl_print(const struct sd_table *t, FILE *f, int mode)
+{
+	tbl_print_panels(t, f, mode, 0, 0);
 }
 
 void tbl_free(struct sd_table *t)
@@ -183,5 +268,6 @@ void tbl_free(struct sd_table *t)
 	free(t->cells);
 	free(t->head);
 	free(t->left);
+	free(t->narrow_out);
 	free(t);
 }

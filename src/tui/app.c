@@ -183,10 +183,11 @@ static void draw_title(struct tui_app *a)
 		tui_putf(0, COLS - right, right, TR_TITLE, "profile %s ", a->ctx->profile.name);
 }
 
-/* The status line; a message longer than the line takes the line above too. */
+/* The status line; a message longer than the line takes the lines above too (up to three),
+ * broken between words. */
 static void draw_status(struct tui_app *a)
 {
-	int y = LINES - 1;
+	int y = LINES - 1, n;
 	const char *hint = "? keys  F10 leave";
 	int hw = (int)strlen(hint) + 1;
 	enum tui_role r = a->status_err ? TR_ERR : TR_OK;
@@ -194,31 +195,17 @@ static void draw_status(struct tui_app *a)
 	tui_fill(y, 0, COLS, TR_PLAIN);
 	if (!a->status[0]) {
 		tui_put(y, COLS - hw + 1, hw, TR_DIM, hint);
+		/* The view's note when it fits beside the hint (a view keeps it short). */
+		if (a->note[0] && tui_width(a->note) + 1 <= COLS - hw - 1)
+			tui_put(y, 1, COLS - hw - 2, (enum tui_role)a->note_role, a->note);
 		return;
 	}
-	if (tui_width(a->status) > COLS) {
-		/* Break at the last space that keeps the first part on its line. */
-		char first[sizeof a->status];
-		size_t cut = 0;
-		for (size_t i = 0; a->status[i]; i++) {
-			if (a->status[i] != ' ')
-				continue;
-			memcpy(first, a->status, i);
-			first[i] = '\0';
-			if (tui_width(first) > COLS)
-				break;
-			cut = i;
-		}
-		if (cut) {
-			memcpy(first, a->status, cut);
-			first[cut] = '\0';
-			tui_fill(y - 1, 0, COLS, TR_PLAIN);
-			tui_put(y - 1, 0, COLS, r, first);
-			tui_put(y, 0, COLS, r, a->status + cut + 1);
-			return;
-		}
-	}
-	tui_put(y, 0, COLS, r, a->status);
+	n = tui_wrapped_lines(COLS, 2, a->status);
+	if (n > 3)
+		n = 3;
+	for (int i = 1; i < n; i++)
+		tui_fill(y - i, 0, COLS, TR_PLAIN);
+	tui_put_wrapped(y - n + 1, 0, COLS, n, 2, r, a->status);
 }
 
 void tui_draw_all(struct tui_app *a)
@@ -233,6 +220,7 @@ void tui_draw_all(struct tui_app *a)
 		return;
 	}
 	draw_title(a);
+	a->note[0] = '\0';
 	s->draw(a);
 	if (a->st.overlay == TUI_OV_HELP)
 		tui_help_draw(a);

@@ -123,6 +123,10 @@ struct tui_app {
 
 	char status[512];
 	int status_err;
+	/* The view's own line for the status line's left side while no message shows (the dose
+	 * view's warnings and scale marks); each draw sets it anew. */
+	char note[160];
+	int note_role;
 	int unicode, color;
 	int quit;
 };
@@ -205,6 +209,12 @@ unsigned tui_attr(enum tui_role r);
 int tui_put(int y, int x, int w, enum tui_role r, const char *s);
 int tui_putf(int y, int x, int w, enum tui_role r, const char *fmt, ...)
 	__attribute__((format(printf, 5, 6)));
+/* Text wrapped at word boundaries (io/wrap.h) into lines of w columns from row y, continuation
+ * lines indented by indent; at most maxl lines, the last ending in an ellipsis after a whole
+ * word when the text needs more. Returns the lines drawn. */
+int tui_put_wrapped(int y, int x, int w, int maxl, int indent, enum tui_role r, const char *text);
+/* The lines tui_put_wrapped needs for text in w columns. */
+int tui_wrapped_lines(int w, int indent, const char *text);
 /* Fills w columns at (y, x) with spaces in role r. */
 void tui_fill(int y, int x, int w, enum tui_role r);
 /* Display width of a UTF-8 string (bytes count 1 each when the locale is not UTF-8). */

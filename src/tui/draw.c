@@ -7,6 +7,7 @@
 #include <string.h>
 #include <wchar.h>
 
+#include "../io/wrap.h"
 #include "app.h"
 
 static attr_t role_attr[TR_NROLES];
@@ -170,6 +171,45 @@ int tui_putf(int y, int x, int w, enum tui_role r, const char *fmt, ...)
 	return tui_put(y, x, w, r, buf);
 }
 
+#define MAX_WRAP 64
+
+int tui_wrapped_lines(int w, int indent, const char *text)
+{
+	struct wrap_line l[1];
+	return w > 0 ? wrap_lines(text, w, indent, l, 0) : 0;
+}
+
+int tui_put_wrapped(int y, int x, int w, int maxl, int indent, enum tui_role r, const char *text)
+{
+	struct wrap_line l[MAX_WRAP];
+	int n;
+
+	if (w <= 0 || maxl <= 0)
+		return 0;
+	n = wrap_lines(text, w, indent, l, MAX_WRAP);
+	if (n > MAX_WRAP)
+		n = MAX_WRAP;
+	for (int i = 0; i < n && i < maxl; i++) {
+		char buf[1024];
+		int more = i == maxl - 1 && n > maxl;
+		int len = l[i].len;
+		/* Cut short: whole words that leave room for the ellipsis, then the ellipsis. */
+		while (more && len > 0) {
+			snprintf(buf, sizeof buf, "%*s%.*s", l[i].lead, "", len, l[i].s);
+			if (tui_width(buf) + 2 <= w)
+				break;
+			while (len > 0 && l[i].s[len - 1] != ' ')
+				len--;
+			while (len > 0 && l[i].s[len - 1] == ' ')
+				len--;
+		}
+		snprintf(buf, sizeof buf, "%*s%.*s%s", l[i].lead, "", len, l[i].s,
+			 more ? (utf8 ? " \u2026" : " ~") : "");
+		tui_put(y + i, x, w, r, buf);
+	}
+	return n < maxl ? n : maxl;
+}
+
 void tui_fill(int y, int x, int w, enum tui_role r)
 {
 	if (y < 0 || y >= LINES || x < 0 || x >= COLS || w <= 0)
@@ -314,7 +354,8 @@ void tui_frame(int y, int x, int h, int w, const char *title)
 		tui_putf(y, x + 2, w - 4, TR_HEAD, " %s ", title);
 }
 
-/* The key card: every table, the current view's first. */
+/* The key card: every table, the current view's first. A description longer than its column
+ * goes on under itself, broken between words. */
 static int help_lines(struct tui_app *a, int draw, int y0, int x, int w, int off, int rows)
 {
 	const struct tui_screen *cur = tui_screen_of(tui_nav_top(&a->st.nav));
@@ -333,7 +374,7 @@ static int help_lines(struct tui_app *a, int draw, int y0, int x, int w, int off
 		{ "forms", tui_form_keys },
 		{ "questions", tui_confirm_keys },
 	};
-	int line = 0;
+	int line = 0, dw = w - 17;
 
 	for (size_t p = 0; p < sizeof parts / sizeof parts[0]; p++) {
 		if (p > 0 && parts[p].b == cur->keys)
@@ -342,11 +383,18 @@ static int help_lines(struct tui_app *a, int draw, int y0, int x, int w, int off
 			tui_putf(y0 + line - off, x, w, TR_HEAD, "%s%s", parts[p].title,
 				 p == 0 ? " (this view)" : "");
 		line++;
-		for (const struct tui_bind *b = parts[p].b; b->keys; b++, line++) {
-			if (!draw || line < off || line >= off + rows)
-				continue;
-			tui_put(y0 + line - off, x + 2, 14, TR_KEY, b->keys);
-			tui_put(y0 + line - off, x + 17, w - 17, TR_PLAIN, b->what);
+		for (const struct tui_bind *b = parts[p].b; b->keys; b++) {
+			struct wrap_line l[8];
+			int n = dw > 0 ? wrap_lines(b->what, dw, 0, l, 8) : 1;
+			for (int i = 0; i < n && i < 8; i++, line++) {
+				char buf[256];
+				if (!draw || line < off || line >= off + rows)
+					continue;
+				if (!i)
+					tui_put(y0 + line - off, x + 2, 14, TR_KEY, b->keys);
+				snprintf(buf, sizeof buf, "%.*s", l[i].len, l[i].s);
+				tui_put(y0 + line - off, x + 17, dw, TR_PLAIN, buf);
+			}
 		}
 		line++;
 	}
@@ -356,7 +404,7 @@ static int help_lines(struct tui_app *a, int draw, int y0, int x, int w, int off
 void tui_help_draw(struct tui_app *a)
 {
 	int w = COLS - 4 > 76 ? 76 : COLS - 4, h = LINES - 2, x = (COLS - w) / 2, y = 1;
-	int total = help_lines(a, 0, 0, 0, 0, 0, 0);
+	int total = help_lines(a, 0, 0, 0, w - 4, 0, 0);
 
 	if (w < 20 || h < 4)
 		return;

@@ -82,41 +82,62 @@ static void draw_test(struct tui_app *a, int y, int i, int sel)
 		tui_put(y, 78, COLS - 79, sel ? TR_SEL : TR_DIM, t->formula);
 }
 
-static void draw_response(struct tui_app *a, int y)
+/* The personal response's two paragraphs: the estimate, and where it comes from. */
+static void response_text(struct tui_app *a, char *l1, char *l2, size_t n)
 {
 	const struct tui_resp *r = &a->resp;
 	int lvl = (int)(a->ctx->opt.level * 100 + 0.5);
 
-	tui_hline(y, 0, COLS);
-	tui_put(y, 2, 20, TR_HEAD, " personal response ");
 	if (!r->ok) {
-		tui_putf(y + 1, 2, COLS - 3, TR_ERR, "cannot compute it: %s", r->err);
+		snprintf(l1, n, "cannot compute it: %s", r->err);
+		l2[0] = '\0';
 		return;
 	}
-	tui_putf(y + 1, 2, COLS - 3, TR_PLAIN, "%+.1f%% against the curve, %d%% interval %+.1f%% to "
-		 "%+.1f%%; data weight %.2f", r->pct, lvl, r->lo, r->hi, r->weight);
+	snprintf(l1, n, "%+.1f%% against the curve, %d%% interval %+.1f%% to %+.1f%%; data weight %.2f",
+		 r->pct, lvl, r->lo, r->hi, r->weight);
 	if (!r->n) {
-		tui_put(y + 2, 2, COLS - 3, TR_DIM, "no completed block tested at its start and end yet: "
-			"this is the prior");
+		snprintf(l2, n, "no completed block tested at its start and end yet: this is the prior");
 		return;
 	}
-	tui_putf(y + 2, 2, COLS - 3, TR_DIM, "%s; from %d observation%s in %d completed block%s; "
-		 "latest: block %lld %s %+.1f%% (predicted %+.1f%%, percentile %.0f)",
+	snprintf(l2, n, "%s; from %d observation%s in %d completed block%s; latest: block %lld %s "
+		 "%+.1f%% (predicted %+.1f%%, percentile %.0f)",
 		 r->estimated ? "roster variances (REML)" : "prior variances", r->n, r->n == 1 ? "" : "s",
 		 r->nblocks, r->nblocks == 1 ? "" : "s", r->obs[r->nobs - 1].block,
 		 r->obs[r->nobs - 1].lift, r->obs[r->nobs - 1].change, r->obs[r->nobs - 1].predicted,
 		 r->obs[r->nobs - 1].pctile);
 }
 
+/* The panel under the lists, its text broken between words; n1 and n2 lines of it. */
+static void draw_response(struct tui_app *a, int y, const char *l1, int n1, const char *l2, int n2)
+{
+	tui_hline(y, 0, COLS);
+	tui_put(y, 2, 20, TR_HEAD, " personal response ");
+	tui_put_wrapped(y + 1, 2, COLS - 3, n1, 2, a->resp.ok ? TR_PLAIN : TR_ERR, l1);
+	tui_put_wrapped(y + 1 + n1, 2, COLS - 3, n2, 2, TR_DIM, l2);
+}
+
 static void draw(struct tui_app *a)
 {
 	const struct db_athlete *at = &a->cur;
-	int top = 3, panel = 3, rows = LINES - 1 - top - panel - 1;
+	char head[1200], l1[300], l2[400];
+	int top = 3, panel, rows, n1, n2;
 
-	tui_putf(1, 1, COLS - 2, TR_HEAD, "%s", at->name);
-	tui_putf(1, 2 + tui_width(at->name), COLS - 3 - tui_width(at->name), TR_PLAIN, " %s, loads in %s%s%s",
+	/* The name and what is known of the athlete on the two lines above the lists, broken
+	 * between words; the name drawn again over its own words, in the heading's role. */
+	snprintf(head, sizeof head, "%s  %s, loads in %s%s%s", at->name,
 		 at->trained ? "trained" : "untrained", at->units_lb ? "lb" : "kg",
 		 at->notes[0] ? "; " : "", at->notes);
+	tui_put_wrapped(1, 1, COLS - 2, 2, 2, TR_PLAIN, head);
+	if (tui_width(at->name) <= COLS - 2)
+		tui_put(1, 1, COLS - 2, TR_HEAD, at->name);
+	response_text(a, l1, l2, sizeof l1);
+	n1 = tui_wrapped_lines(COLS - 3, 2, l1);
+	n2 = tui_wrapped_lines(COLS - 3, 2, l2);
+	/* The panel takes what its text needs, keeping at least 4 list rows (then it is cut). */
+	while (n1 + n2 > 2 && LINES - 1 - top - (1 + n1 + n2) - 1 < 4)
+		n2 > 1 ? n2-- : n1--;
+	panel = 1 + n1 + n2;
+	rows = LINES - 1 - top - panel - 1;
 	tui_list_fit(&a->st.athlete, rows > 1 ? rows : 1);
 	for (int r = 0; r < a->st.athlete.rows && a->st.athlete.top + r < a->nrows; r++) {
 		int i = a->st.athlete.top + r, idx, y = top + r;
@@ -140,7 +161,7 @@ static void draw(struct tui_app *a)
 			break;
 		}
 	}
-	draw_response(a, LINES - 1 - panel - 1);
+	draw_response(a, LINES - 1 - panel - 1, l1, n1, l2, n2);
 	tui_putf(LINES - 2, 1, COLS - 2, TR_DIM, "Enter dose %s k curve %s b block %s t test %s "
 		 "f finish %s Esc back", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|",
 		 a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|");

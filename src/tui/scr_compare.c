@@ -53,13 +53,30 @@ static void diff_gauge(struct tui_app *a, int y, int x, int w, double diff, doub
 	attrset(A_NORMAL);
 }
 
+/* The selected muscle: both doses and gains, then B over A with its decision. */
+static void selected_text(struct tui_app *a, const struct cmp_diff *pr, int lvl, char *l1,
+			  size_t n1, char *l2, size_t n2)
+{
+	int m = a->st.pairs.sel;
+	const struct cmp_diff *q = &pr[m];
+	const struct sd_audit_row *ra = &a->a.audit.row[m], *rb = &a->b.audit.row[m];
+
+	snprintf(l1, n1, "%s: A %.1f sets, gain %+.1f%% (%s); B %.1f sets, gain %+.1f%% (%s)",
+		 muscle_name(m), q->xa, curve_pct(ra->pt.y), zone_name(ra->zone), q->xb,
+		 curve_pct(rb->pt.y), zone_name(rb->zone));
+	snprintf(l2, n2, "B over A %+.1f%% (%d%% CI %.1f to %.1f): %s, the %.0f%% interval %.1f to "
+		 "%.1f is %s", curve_pct(q->d), lvl, curve_pct(q->lo), curve_pct(q->hi),
+		 cmp_decision_name(q->decision), 100 * cmp_decision_level(a->ctx->opt.level),
+		 curve_pct(q->dlo), curve_pct(q->dhi), cmp_decision_meaning(q->decision));
+}
+
 static void draw(struct tui_app *a)
 {
 	const struct sd_profile *p = &a->ctx->profile;
-	int top = 5, rows = LINES - 9, gx = 26, gw, lvl = (int)lround(a->ctx->opt.level * 100);
+	int top, rows, gx = 26, gw, lvl = (int)lround(a->ctx->opt.level * 100), cl, b1, b2;
 	double span = 5;
 	struct cmp_diff pr[SD_NMUSCLES];
-	char ctx[160];
+	char ctx[160], head[400], l1[300], l2[400];
 
 	tui_putf(1, 1, COLS - 2, TR_HEAD, "A: '%s'", a->a.rec.name);
 	tui_putf(2, 1, COLS - 2, TR_HEAD, "B: '%s'", a->b.rec.name);
@@ -70,14 +87,24 @@ static void draw(struct tui_app *a)
 	tui_putf(1, COLS / 2, COLS - COLS / 2 - 1, TR_PLAIN, "%d hard sets a week", a->a.audit.vol.hard_sets);
 	tui_putf(2, COLS / 2, COLS - COLS / 2 - 1, TR_PLAIN, "%d hard sets a week", a->b.audit.vol.hard_sets);
 	tui_context_text(a, ctx, sizeof ctx);
-	tui_putf(3, 1, COLS - 2, TR_DIM, "%s; diff: B's predicted 1RM over A's, %d%% CI; decision: "
-		 "the %.0f%% interval against +/- the SWC %.1f%%", ctx, lvl,
+	snprintf(head, sizeof head, "%s; diff: B's predicted 1RM over A's, %d%% CI; decision: the "
+		 "%.0f%% interval against +/- the SWC %.1f%%", ctx, lvl,
 		 100 * cmp_decision_level(a->ctx->opt.level), curve_pct(p->swc));
 	for (int m = 0; m < SD_NMUSCLES; m++) {
 		pair_of(a, m, &pr[m]);
 		if (fabs(pr[m].xb - pr[m].xa) > span)
 			span = fabs(pr[m].xb - pr[m].xa);
 	}
+	/* The lines above and under the table are broken between words; the table gets the rows
+	 * left and scrolls. */
+	selected_text(a, pr, lvl, l1, sizeof l1, l2, sizeof l2);
+	cl = tui_put_wrapped(3, 1, COLS - 2, 2, 2, TR_DIM, head);
+	b1 = tui_wrapped_lines(COLS - 2, 2, l1);
+	b2 = tui_wrapped_lines(COLS - 2, 2, l2);
+	b1 = b1 > 2 ? 2 : b1;
+	b2 = b2 > 2 ? 2 : b2;
+	top = 4 + cl;
+	rows = LINES - top - b1 - b2 - 2;
 	gw = COLS - gx - 1 - 37;
 	if (gw < 7)
 		gw = 7;
@@ -104,19 +131,8 @@ static void draw(struct tui_app *a)
 		tui_put(y, gx + gw + 24, 12, sel ? role : q->decision == CMP_CLEAR_GAIN ? TR_OK :
 			q->decision == CMP_CLEAR_LOSS ? TR_WARN : role, cmp_decision_name(q->decision));
 	}
-	{
-		int m = a->st.pairs.sel;
-		const struct cmp_diff *q = &pr[m];
-		const struct sd_audit_row *ra = &a->a.audit.row[m], *rb = &a->b.audit.row[m];
-		tui_putf(LINES - 4, 1, COLS - 2, TR_PLAIN, "%s: A %.1f sets, gain %+.1f%% (%s); B %.1f sets, "
-			 "gain %+.1f%% (%s)", muscle_name(m), q->xa, curve_pct(ra->pt.y), zone_name(ra->zone),
-			 q->xb, curve_pct(rb->pt.y), zone_name(rb->zone));
-		tui_putf(LINES - 3, 1, COLS - 2, TR_PLAIN, "B over A %+.1f%% (%d%% CI %.1f to %.1f): %s, "
-			 "the %.0f%% interval %.1f to %.1f is %s", curve_pct(q->d), lvl, curve_pct(q->lo),
-			 curve_pct(q->hi), cmp_decision_name(q->decision),
-			 100 * cmp_decision_level(a->ctx->opt.level), curve_pct(q->dlo), curve_pct(q->dhi),
-			 cmp_decision_meaning(q->decision));
-	}
+	tui_put_wrapped(LINES - 2 - b2 - b1, 1, COLS - 2, b1, 2, TR_PLAIN, l1);
+	tui_put_wrapped(LINES - 2 - b2, 1, COLS - 2, b2, 2, TR_PLAIN, l2);
 	tui_putf(LINES - 2, 1, COLS - 2, TR_DIM, "x swap A and B %s s status %s [ ] weeks %s Esc back",
 		 a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|");
 }

@@ -151,12 +151,15 @@ static void draw_plot(struct tui_app *a, const struct sd_tplot *tp, int y0, int 
 	draw_axis(a, tp, y0 + tp->h, x0);
 }
 
-static void draw_readout(struct tui_app *a, int y, const struct sd_covars *cov, double plateau,
-			 const struct sd_tplot *tp, const double *dose, const int *mus, int k)
+/* The readout under the plot: the curve at the cursor (one line), then the one-athlete band,
+ * +1 set, the zone and the marked muscles at this dose, broken between words. */
+static void readout_text(struct tui_app *a, const struct sd_covars *cov, double plateau,
+			 const struct sd_tplot *tp, const double *dose, const int *mus, int k,
+			 char *l1, size_t n1, char *l2, size_t n2)
 {
 	const struct sd_profile *p = &a->ctx->profile;
 	double x = a->st.cursor.x, level = a->ctx->opt.level;
-	int lvl = (int)lround(level * 100), cc = tplot_col(tp, x), n = 0;
+	int lvl = (int)lround(level * 100), cc = tplot_col(tp, x), m = 0;
 	struct sd_point pt;
 	struct sd_plus1 mg;
 	char here[256] = "";
@@ -165,13 +168,13 @@ static void draw_readout(struct tui_app *a, int y, const struct sd_covars *cov, 
 	curve_plus1(p, cov, x, level, &mg);
 	for (int i = 0; i < k; i++)
 		if (tplot_col(tp, dose[i]) == cc)
-			n += snprintf(here + n, sizeof here - (size_t)n, "%s%c %s", n ? ", " : "; here: ",
+			m += snprintf(here + m, sizeof here - (size_t)m, "%s%c %s", m ? ", " : "; here: ",
 				      letter(i), muscle_name(mus[i]));
-	tui_putf(y, 1, COLS - 2, TR_MEAN, "at %.1f sets: gain %+.1f%%  %d%%: curve %.1f to %.1f  "
-		 "group %.1f to %.1f", x, curve_pct(pt.y), lvl, curve_pct(pt.ci_lo),
-		 curve_pct(pt.ci_hi), curve_pct(pt.group_lo), curve_pct(pt.group_hi));
-	tui_putf(y + 1, 1, COLS - 2, TR_PLAIN, "athlete %.1f to %.1f; +1 set %+.2f%% (%.2f to %.2f); "
-		 "%s%s", curve_pct(pt.ath_lo), curve_pct(pt.ath_hi), mg.pct, mg.lo, mg.hi,
+	snprintf(l1, n1, "at %.1f sets: gain %+.1f%%  %d%%: curve %.1f to %.1f  group %.1f to %.1f", x,
+		 curve_pct(pt.y), lvl, curve_pct(pt.ci_lo), curve_pct(pt.ci_hi),
+		 curve_pct(pt.group_lo), curve_pct(pt.group_hi));
+	snprintf(l2, n2, "athlete %.1f to %.1f; +1 set %+.2f%% (%.2f to %.2f); %s%s",
+		 curve_pct(pt.ath_lo), curve_pct(pt.ath_hi), mg.pct, mg.lo, mg.hi,
 		 zone_name(curve_zone(p, plateau, x)), here);
 }
 
@@ -205,19 +208,27 @@ static void draw(struct tui_app *a)
 	struct sd_covars cov = tui_covars(a);
 	double dose[SD_NMUSCLES], plateau = curve_plateau(p, &cov, 1.0);
 	int mus[SD_NMUSCLES], k = marked(a, dose, mus), x0 = 9, w = COLS - x0 - 1;
-	int mlines = draw_marks(0, 4, dose, mus, k, 0), h = LINES - 8 - mlines, lvl, cw;
+	int mlines = draw_marks(0, 4, dose, mus, k, 0), h, lvl, cw, n1, top = 3;
 	struct sd_tplot *tp;
-	char ctx[160];
+	char ctx[160], l1[300], l2[600], legend[96];
 
 	lvl = (int)lround(a->ctx->opt.level * 100);
 	tui_context_text(a, ctx, sizeof ctx);
 	tui_putf(1, 1, COLS - 2, TR_HEAD, "%s", a->a.kind ? a->a.label : "the curve");
 	cw = tui_put(2, 1, COLS - 2, TR_PLAIN, ctx);
-	tui_putf(2, cw + 4, COLS - cw - 5, TR_DIM, "%s mean  %s %d%% curve  %s group  %s athlete",
+	snprintf(legend, sizeof legend, "%s mean  %s %d%% curve  %s group  %s athlete",
 		 a->unicode ? "\u2588" : "#", a->unicode ? "\u2593" : "=", lvl,
 		 a->unicode ? "\u2592" : ":", a->unicode ? "\u2591" : ".");
+	/* The legend beside the context when both fit, else on a line of its own. */
+	if (cw + 3 + tui_width(legend) <= COLS - 2)
+		tui_put(2, cw + 4, COLS - cw - 5, TR_DIM, legend);
+	else
+		tui_put(top++, 1, COLS - 2, TR_DIM, legend);
 	if (a->a.kind && !a->a.ready)
-		tui_putf(3, 1, COLS - 2, TR_ERR, "no marks: %s", a->a.err);
+		tui_putf(top, 1, COLS - 2, TR_ERR, "no marks: %s", a->a.err);
+	/* The readout under the marks takes three lines: which muscles sit at the cursor is known
+	 * only once the plot has its columns, and their names may need a line of their own. */
+	h = LINES - 6 - top - mlines;
 	if (h < 4 || w < 20 || !(tp = tplot_new(w, h))) {
 		tui_put(4, 1, COLS - 2, TR_ERR, "the window is too small for the plot");
 		return;
@@ -226,14 +237,16 @@ static void draw(struct tui_app *a)
 	tui_cursor_reset(&a->st.cursor, 0, tp->x1, a->st.cursor.x);
 	for (int i = 0; i < k; i++)
 		tplot_mark(tp, dose[i], curve_pct(a->a.audit.row[mus[i]].pt.y), letter(i));
-	draw_plot(a, tp, 3, x0, plateau);
-	tui_put(3 + h + 1, 0, x0 - 1, TR_AXIS, " sets:");
+	draw_plot(a, tp, top, x0, plateau);
+	tui_put(top + h + 1, 0, x0 - 1, TR_AXIS, " sets:");
 	if (k)
-		draw_marks(3 + h + 2, mlines, dose, mus, k, 1);
+		draw_marks(top + h + 2, mlines, dose, mus, k, 1);
 	else
-		tui_put(3 + h + 2, 1, COLS - 2, TR_DIM, a->a.kind ? "no muscle has a dose" :
+		tui_put(top + h + 2, 1, COLS - 2, TR_DIM, a->a.kind ? "no muscle has a dose" :
 			"no muscles marked: open the curve from a block or a template");
-	draw_readout(a, LINES - 3, &cov, plateau, tp, dose, mus, k);
+	readout_text(a, &cov, plateau, tp, dose, mus, k, l1, sizeof l1, l2, sizeof l2);
+	n1 = tui_put_wrapped(LINES - 4, 1, COLS - 2, 2, 2, TR_MEAN, l1);
+	tui_put_wrapped(LINES - 4 + n1, 1, COLS - 2, 3 - n1, 2, TR_PLAIN, l2);
 	tplot_free(tp);
 }
 

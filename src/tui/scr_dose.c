@@ -8,13 +8,14 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "../io/wrap.h"
 #include "app.h"
 
 enum { K_UP = 1, K_DOWN, K_PGUP, K_PGDN, K_HOME, K_END, K_CURVE, K_WARN };
 
 static const struct tui_bind keys[] = {
-	{ { KEY_UP }, K_UP, "Up", "previous muscle (or warning)" },
-	{ { KEY_DOWN }, K_DOWN, "Down", "next muscle (or warning)" },
+	{ { KEY_UP }, K_UP, "Up", "previous muscle (or scroll the warnings)" },
+	{ { KEY_DOWN }, K_DOWN, "Down", "next muscle (or scroll the warnings)" },
 	{ { KEY_PPAGE }, K_PGUP, "PgUp", "a screenful up" },
 	{ { KEY_NPAGE }, K_PGDN, "PgDn", "a screenful down" },
 	{ { KEY_HOME }, K_HOME, "Home", "first muscle" },
@@ -63,33 +64,53 @@ static void draw_row(struct tui_app *a, const struct sd_audit *au, int m, int y,
 	tui_put(y, x + 7, COLS - x - 7, sel ? TR_SEL : zr, zone);
 }
 
-/* The selected muscle: its dose (when there is room) and its gain with the three bands. */
-static void draw_detail(const struct sd_audit *au, int m, int y, int dose_line)
+/* The selected muscle: its dose and what one more set buys (when there is room) and its gain
+ * with the three bands, as paragraphs for tui_put_wrapped. */
+static void detail_text(const struct sd_audit *au, int m, int dose_line, char *buf, size_t n)
 {
 	const struct sd_audit_row *r = &au->row[m];
-	int lvl = (int)lround(au->level * 100);
+	int lvl = (int)lround(au->level * 100), k = 0;
 
 	if (dose_line)
-		tui_putf(y++, 1, COLS - 2, TR_PLAIN, "%s %.1f sets: %g direct, %g indirect; %d session%s, at "
-		 "most %.1f in one%s; %s", muscle_name(m), r->dose.fractional, r->dose.direct,
-		 r->dose.indirect, r->dose.sessions, r->dose.sessions == 1 ? "" : "s",
-		 r->dose.max_session, r->dose.easy > 0 ? "; easy sets not counted" : "",
-		 zone_name(r->zone));
-	tui_putf(y, 1, COLS - 2, TR_PLAIN, "gain %+.1f%%, %d%%: curve %.1f to %.1f, group %.1f to "
-		 "%.1f, athlete %.1f to %.1f; +1 set %+.2f%% (%.2f to %.2f)", curve_pct(r->pt.y), lvl,
-		 curve_pct(r->pt.ci_lo), curve_pct(r->pt.ci_hi), curve_pct(r->pt.group_lo),
-		 curve_pct(r->pt.group_hi), curve_pct(r->pt.ath_lo), curve_pct(r->pt.ath_hi),
-		 r->plus1.pct, r->plus1.lo, r->plus1.hi);
+		k = snprintf(buf, n, "%s %.1f sets: %g direct, %g indirect; %d session%s, at most %.1f "
+			     "in one%s; %s; +1 set %+.2f%% (%.2f to %.2f)\n", muscle_name(m),
+			     r->dose.fractional, r->dose.direct, r->dose.indirect, r->dose.sessions,
+			     r->dose.sessions == 1 ? "" : "s", r->dose.max_session,
+			     r->dose.easy > 0 ? "; easy sets not counted" : "", zone_name(r->zone),
+			     r->plus1.pct, r->plus1.lo, r->plus1.hi);
+	if (k < 0 || (size_t)k >= n)
+		k = 0;
+	snprintf(buf + k, n - (size_t)k, "gain %+.1f%%, %d%%: curve %.1f to %.1f, group %.1f to %.1f, "
+		 "athlete %.1f to %.1f", curve_pct(r->pt.y), lvl, curve_pct(r->pt.ci_lo),
+		 curve_pct(r->pt.ci_hi), curve_pct(r->pt.group_lo), curve_pct(r->pt.group_hi),
+		 curve_pct(r->pt.ath_lo), curve_pct(r->pt.ath_hi));
 }
 
+/* The warnings in full, each broken between words under its bullet; the pane scrolls by
+ * lines. */
 static void draw_warnings(struct tui_app *a, const struct sd_audit *au, int top, int rows)
 {
-	tui_scroll_total(&a->st.warn, au->nwarn);
+	int w = COLS - 4, total = 0, line = 0;
+
+	for (int i = 0; i < au->nwarn; i++)
+		total += tui_wrapped_lines(w, 0, au->warn[i].text);
+	tui_scroll_total(&a->st.warn, total);
 	tui_scroll_fit(&a->st.warn, rows);
 	tui_putf(top - 1, 1, COLS - 2, TR_HEAD, "warnings (%d)", au->nwarn);
-	for (int r = 0; r < rows && a->st.warn.off + r < au->nwarn; r++)
-		tui_putf(top + r, 1, COLS - 2, TR_WARN, "%s %s", a->unicode ? "\u25aa" : "*",
-			 au->warn[a->st.warn.off + r].text);
+	for (int i = 0; i < au->nwarn && line < a->st.warn.off + rows; i++) {
+		struct wrap_line l[16];
+		int n = wrap_lines(au->warn[i].text, w, 0, l, 16);
+		for (int j = 0; j < n && j < 16; j++, line++) {
+			char buf[300];
+			int y = top + line - a->st.warn.off;
+			if (line < a->st.warn.off || line >= a->st.warn.off + rows)
+				continue;
+			if (!j)
+				tui_put(y, 1, 1, TR_WARN, a->unicode ? "\u25aa" : "*");
+			snprintf(buf, sizeof buf, "%.*s", l[j].len, l[j].s);
+			tui_put(y, 3, w, TR_WARN, buf);
+		}
+	}
 	if (!au->nwarn)
 		tui_put(top, 1, COLS - 2, TR_DIM, "no warnings");
 }
@@ -100,11 +121,13 @@ static void draw(struct tui_app *a)
 	const struct sd_audit *au = &s->audit;
 	const struct sd_profile *p = &a->ctx->profile;
 	/* A short window keeps every muscle on screen and the provenance line, and drops the
-	 * detail's dose line (the row above shows the dose). */
-	int tall = LINES >= 25, wide = COLS >= 110, gx = 19, gw, top = 4, rows = LINES - 8 - tall;
-	int lvl, lw;
+	 * detail's dose line (the row above shows the dose). The detail and the provenance are
+	 * wrapped between words; the muscles get the rows left (and scroll when too few). The
+	 * warnings and the scale's marks go on the status line. */
+	int tall = LINES >= 25, wide = COLS >= 110, gx = 19, gw, top = 4, rows, dl, pl;
+	int lvl;
 	double dmax = 0, smax;
-	char ctx[200], legend[96], prov[300];
+	char ctx[200], prov[300], detail[400];
 
 	tui_context_text(a, ctx, sizeof ctx);
 	tui_putf(1, 1, COLS - 2, TR_HEAD, "%s", s->label);
@@ -113,6 +136,16 @@ static void draw(struct tui_app *a)
 		return;
 	}
 	lvl = (int)lround(au->level * 100);
+	detail_text(au, a->st.muscles.sel, tall, detail, sizeof detail);
+	profile_oneline(p, prov, sizeof prov);
+	dl = tui_wrapped_lines(COLS - 2, 2, detail);
+	pl = tui_wrapped_lines(COLS - 2, 2, prov);
+	rows = LINES - top - dl - pl - 1;
+	if (rows < 3) {   /* a low window: the muscles first, the text cut short */
+		dl = dl > 1 ? 1 : dl;
+		pl = pl > 1 ? 1 : pl;
+		rows = LINES - top - dl - pl - 1;
+	}
 	tui_putf(2, 1, COLS - 2, TR_PLAIN, "%s; %d day%s, %d hard sets a week", ctx, s->prog.ndays,
 		 s->prog.ndays == 1 ? "" : "s", au->vol.hard_sets);
 	for (int m = 0; m < SD_NMUSCLES; m++)
@@ -149,19 +182,18 @@ static void draw(struct tui_app *a)
 		if (au->nwarn && rows - SD_NMUSCLES >= 3)
 			draw_warnings(a, au, top + SD_NMUSCLES + 2, rows - SD_NMUSCLES - 2);
 	}
-	draw_detail(au, a->st.muscles.sel, LINES - 4 - tall, tall);
-	profile_oneline(p, prov, sizeof prov);
-	tui_put(LINES - 3, 1, COLS - 2, TR_DIM, prov);
-	/* The bottom line: the scale's two marks on the right, the warnings on the left. */
-	snprintf(legend, sizeof legend, "%s plateau %g  %s end of evidence %g",
-		 a->unicode ? "\u250a" : ":", au->plateau, a->unicode ? "\u2503" : "|", p->dose_max);
-	lw = tui_width(legend);
-	tui_put(LINES - 2, COLS - lw - 1, lw, TR_DIM, legend);
+	tui_put_wrapped(LINES - 1 - pl - dl, 1, COLS - 2, dl, 2, TR_PLAIN, detail);
+	tui_put_wrapped(LINES - 1 - pl, 1, COLS - 2, pl, 2, TR_DIM, prov);
 	if (au->nwarn)
-		tui_putf(LINES - 2, 1, COLS - lw - 3, TR_WARN, "%d warning%s%s: %s", au->nwarn,
-			 au->nwarn == 1 ? "" : "s", a->st.warn_pane ? "" : " (w lists)", au->warn[0].text);
+		snprintf(a->note, sizeof a->note, "%d warning%s%s  %s plateau %g  %s end of evidence %g",
+			 au->nwarn, au->nwarn == 1 ? "" : "s", a->st.warn_pane ? "" : " (w lists)",
+			 a->unicode ? "\u250a" : ":", au->plateau, a->unicode ? "\u2503" : "|",
+			 p->dose_max);
 	else
-		tui_put(LINES - 2, 1, COLS - lw - 3, TR_DIM, "no warnings");
+		snprintf(a->note, sizeof a->note, "no warnings  %s plateau %g  %s end of evidence %g",
+			 a->unicode ? "\u250a" : ":", au->plateau, a->unicode ? "\u2503" : "|",
+			 p->dose_max);
+	a->note_role = au->nwarn ? TR_WARN : TR_DIM;
 }
 
 static int key(struct tui_app *a, int ch)

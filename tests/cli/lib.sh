@@ -26,6 +26,15 @@ has() {
 	else _rec failed "${3:-$1 has '$2'}"; fi
 }
 
+# says FILE REGEX [WHAT]   the prose of FILE, its wrapped lines joined (a line break and the
+# blanks around it read as one space), contains REGEX: text wrapped to 80 columns is found
+# whatever the line it breaks at
+says() {
+	LAST_OUT=$TMP/$1
+	if tr '\n' ' ' <"$TMP/$1" | sed 's/  */ /g' | grep -Eq -- "$2"; then _rec passed "${3:-$1 says '$2'}"
+	else _rec failed "${3:-$1 says '$2'}"; fi
+}
+
 # hasnt FILE REGEX [WHAT]
 hasnt() {
 	LAST_OUT=$TMP/$1

@@ -9,7 +9,7 @@ has out '^every set at RIR 2; fatigue [0-9.]+ a week \(no --fatigue-budget\)$'
 has out '^rules: 2 to 5 sets of an exercise in a session, at most 6 exercises a session \(common practice, no source\)$'
 has out '^method: branch-and-bound over [0-9]+ exercises, .*proved'
 has out '^total +30 '
-has out 'Not medical advice'
+says out 'Not medical advice'
 
 # The coach's test, with the defaults: 40 sets over 3 sessions. Every target muscle reaches the
 # profile's practical threshold (the plateau audit reports), every exercise has at least 2 sets

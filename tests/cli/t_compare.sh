@@ -23,7 +23,7 @@ hasnt out 'P\(>SWC\)|verdict' "no probability-beyond-SWC column"
 has out "^profile 'strength-default' \(calibrated\)"
 has out '^hard sets a week +3 +8'
 has out '^sessions +1 +2'
-has out 'Not medical advice'
+says out 'Not medical advice'
 
 run 0 "$SD" compare --format csv a.ini b.ini
 has out '^difference,A,B,,chest,3\.00,8\.00,,,,,2\.8167,2\.2585,3\.3780,2\.3480,3\.2876,some-gain,,,,,,,$' "csv row by hand"
@@ -83,7 +83,7 @@ assert abs(ch["se_lnrr"] - 0.00500771) < 1e-6, ch   # JSON rounds to 6 decimals
 assert ch["decision"] == "some-gain" and "random-slope variance" in d["intervals"]
 PY
 run 0 "$SD" --profile slopes.ini compare a.ini b.ini
-has out "adds the profile's random-slope variance"
+says out "adds the profile's random-slope variance"
 
 # Bad input: one line, status 2 for usage and 1 for unreadable programs. Comparing files never
 # creates a database; a name that is no file is looked up only in an existing one.

@@ -105,7 +105,7 @@ check "the written profile marks its basis and copied athlete variance" sh -c \
 	"grep -q '^basis *= fitted' plain.ini && grep -q '^athlete *= 0.0064' plain.ini && grep -q '^weeks *= 6, 16' plain.ini"
 run 0 "$SD" --profile fitted.ini audit "$ROOT/profiles/demo-fullbody3.ini"
 has out "profile sim-fit"
-has out "^profile 'sim-fit' \(fitted\): fitted by setdose fit to 'sim_reciprocal_effects.csv'" "the fitted profile's provenance line under the table"
+says out "profile 'sim-fit' \(fitted\): fitted by setdose fit to 'sim_reciprocal_effects.csv'" "the fitted profile's provenance line under the table"
 run 0 "$SD" --profile fitted.ini --weeks 30 --format json audit "$ROOT/profiles/demo-fullbody3.ini"
 check "a fitted profile flags block lengths outside its data (6-16 weeks)" python3 -c '
 import json,sys; a=json.load(open(sys.argv[1]))["audits"][0]

@@ -65,7 +65,7 @@ has out '2 days, 27 hard sets a week; untrained, 6-week block'
 has out '^chest +8 +0 +8\.0 '
 has out '^quads +7 +0 +7\.0 '
 has out "warning: line 13: 'squat \(high bar\)' counted as 'back squat'"
-has out "warning: line 15: 'bench press' again in 'thu' \(first on line 14\): the sets add up"
+says out "warning: line 15: 'bench press' again in 'thu' \(first on line 14\): the sets add up"
 has out 'warning: 3 sets with RIR above 4 listed but not counted as hard sets'
 has out 'warning: 2 warm-up sets listed but not counted'
 run 0 "$SD" audit --format json all.ini
@@ -81,7 +81,7 @@ PY
 # 'effort = rir' keeps the old reading.
 printf '[program]\nname = old style\n[a]\nbench press = 3x5 @2\nback squat = 3x5 @1\nbarbell row = 3x8 @3\nlat pulldown = 3x10 @0 RIR\n' >old.ini
 run 0 "$SD" audit old.ini
-has out "warning: lines 4, 5, 6: RPE 2 is far from hard; did you mean RIR 2\? \(a bare @N is RPE: write 'RIR 2', or 'effort = rir' under \[program\]\)"
+says out "warning: lines 4, 5, 6: RPE 2 is far from hard; did you mean RIR 2\? \(a bare @N is RPE: write 'RIR 2', or 'effort = rir' under \[program\]\)"
 has out '1 day, 3 hard sets a week'
 sed 's/^name = old style$/&\neffort = rir/' old.ini >old-rir.ini
 run 0 "$SD" audit old-rir.ini
@@ -95,7 +95,7 @@ check "the stored template is the text as written" cmp -s "$TMP/out" old.ini
 run 0 "$SD" athlete add "Pat Example" --status trained
 run 0 "$SD" block add "Pat Example" "old style" --start 2025-01-06 --weeks 8
 run 0 "$SD" block show 1
-has out "warning: lines 4, 5, 6: RPE 2 is far from hard; did you mean RIR 2\?"
+says out "warning: lines 4, 5, 6: RPE 2 is far from hard; did you mean RIR 2\?"
 
 # CSV from spreadsheets: semicolons, decimal commas, name and weeks in comment lines.
 printf '# name: every notation\n# weeks: 6\nday;exercise;sets;reps;rpe\nmon;bench press;2x5 warm-up, 1x3 @9, 3x5 @7;;\nmon;Squats;3;5;8,5\nmon;pull-ups;3;AMRAP;\nmon;lateral raises;3;12-15;9\nmon;bulgarian split squats;3x8/side @2 RIR;;\nmon;plank;3;45s;\nmon;triceps pushdown;3;12;5,5\nthu;squat (high bar);1;5;8\nthu;bench press;2x8-10 rir1;;\nthu;bench press;2;10;8\nthu;RDLs;3;8;8\n' >all.csv

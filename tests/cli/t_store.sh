@@ -239,11 +239,11 @@ check "--prior-sd 0.2 --test-error 0.05 give the hand values" awk -F, '
   m = A * t / (1 + A * s); sd = sqrt(A / (1 + A * s))
   exit !(($3 - m) ^ 2 < 1e-12 && ($4 - sd) ^ 2 < 1e-12 && $14 == 0.04 && $16 == 0.05) }' "$TMP/pers2.csv"
 run 0 "$SD" --profile "$LP" response "Noor Vance"
-has out 'test error 0\.030 per 1RM test .*different rep counts' "table states the test error and its rule"
-has out '^variances: the stated priors \(the roster is too small to estimate them: 1 athletes with observations \(need 10\)' "which variances, and why"
+says out 'test error 0\.030 per 1RM test .*different rep counts' "table states the test error and its rule"
+says out 'variances: the stated priors \(the roster is too small to estimate them: 1 athletes with observations \(need 10\)' "which variances, and why"
 has out "between athletes 0\.00240 \(SD 0\.049, the profile's one-athlete variance\)"
 has out '^personal response: -0\.9% \(lnRR -0\.0088\)' "personal response -0.87% in the table"
-has out 'from 2 observations in 2 completed blocks'
+says out 'from 2 observations in 2 completed blocks'
 run 0 "$SD" --profile "$LP" response "Noor Vance" --block 3 --format json
 check "response JSON: one row for block 3, personal from both blocks" python3 -c "
 import json; d=json.load(open('$TMP/out'))
@@ -395,7 +395,7 @@ check "demo: 8 invented athletes" test "$(grep -c 'invented demo athlete' "$TMP/
 check "demo: both training statuses" sh -c "grep -q ' trained ' '$TMP/out' && grep -q ' untrained ' '$TMP/out'"
 check "demo: 2 or 3 completed blocks per athlete" test "$(sqlite3 "$TMP/demo.db" "SELECT count(*) FROM (SELECT athlete_id, count(*) n FROM blocks WHERE end_date IS NOT NULL GROUP BY athlete_id) WHERE n BETWEEN 2 AND 3")" -eq 8
 run 0 "$SD" --db "$TMP/demo.db" response "Caspian Hollowell"
-has out 'from 9 observations in 3 completed blocks'
+says out 'from 9 observations in 3 completed blocks'
 run 0 "$SD" --db "$TMP/demo.db" audit --all --format csv
 check "demo: audit --all gives 16 rows for each of the 8 open blocks" test "$(wc -l <"$TMP/out")" -eq 129
 

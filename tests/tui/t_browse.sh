@@ -60,7 +60,7 @@ wait_for "$(readout 5.0 trained 12)" "k opens the curve; the cursor reads the cu
 on_screen "█ mean +▓ 95% curve +▒ group +░ athlete" "the curve's legend names the three bands"
 on_screen "^ *athlete .* to .*; \+1 set " "the readout gives the one-athlete band and +1 set"
 on_screen "a chest 5\.0" "the block's muscles are marked and listed"
-on_screen "here: a ches(t|…)" "the cursor names the muscles at its dose (cut with an ellipsis at 80 columns)"
+on_screen "here: a chest" "the cursor names the muscles at its dose"
 on_screen "sets: +0 .*10 .*20 .*30" "the dose axis is labelled"
 keys Right Right Right
 wait_for "$(readout 6.5 trained 12)" "Right moves the cursor to 6.5 sets; values equal 'setdose curve'"
