@@ -205,6 +205,8 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 		{ NULL, 0, NULL, 0 },
 	};
 	struct db_athlete a;
+	char logs[48];
+	long long nl;
 	int c, yes = 0, cascade = 0, nb, nt;
 
 	optind = 0;
@@ -220,17 +222,19 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	if (optind != argc - 1)
 		return usage(e);
 	if (db_begin(ctx->db, e) || db_athlete_get(ctx->db, argv[optind], &a, e) ||
-	    db_athlete_refs(ctx->db, a.id, &nb, &nt, e))
+	    db_athlete_refs(ctx->db, a.id, &nb, &nt, e) || db_log_count(ctx->db, a.id, &nl, e))
 		return -1;
-	if ((nb || nt) && !cascade)
-		return sd_fail(e, "athlete '%s' has %d block%s and %d test%s; not removed (use "
-			       "--cascade to remove them too)", a.name, nb, nb == 1 ? "" : "s", nt,
-			       nt == 1 ? "" : "s");
+	/* The logged rows are named only when there are some: most athletes have none. */
+	snprintf(logs, sizeof logs, nl ? " and %lld logged row%s" : "", nl, nl == 1 ? "" : "s");
+	if ((nb || nt || nl) && !cascade)
+		return sd_fail(e, "athlete '%s' has %d block%s%s %d test%s%s; not removed (use "
+			       "--cascade to remove them too)", a.name, nb, nb == 1 ? "" : "s",
+			       nl ? "," : " and", nt, nt == 1 ? "" : "s", logs);
 	if (!yes) {
 		char q[256];
 		int ok;
-		snprintf(q, sizeof q, "remove athlete '%s' with %d block%s and %d test%s?", a.name,
-			 nb, nb == 1 ? "" : "s", nt, nt == 1 ? "" : "s");
+		snprintf(q, sizeof q, "remove athlete '%s' with %d block%s%s %d test%s%s?", a.name,
+			 nb, nb == 1 ? "" : "s", nl ? "," : " and", nt, nt == 1 ? "" : "s", logs);
 		ok = dbu_confirm(q, e);
 		if (ok < 0)
 			return -1;
@@ -239,8 +243,9 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	}
 	if (db_athlete_rm(ctx->db, a.id, cascade, e) || db_commit(ctx->db, e))
 		return -1;
-	fprintf(ctx->out, "removed athlete '%s' (%d block%s, %d test%s)\n", a.name, nb,
+	fprintf(ctx->out, "removed athlete '%s' (%d block%s, %d test%s", a.name, nb,
 		nb == 1 ? "" : "s", nt, nt == 1 ? "" : "s");
+	fprintf(ctx->out, nl ? ", %lld logged row%s)\n" : ")\n", nl, nl == 1 ? "" : "s");
 	return 0;
 }
 
@@ -268,7 +273,7 @@ const struct sd_cmd cmd_athlete = {
 		 "       setdose athlete rm NAME [--yes] [--cascade]\n"
 		 "  --status     training status, used for the curve (default untrained)\n"
 		 "  --units      kg or lb: how this athlete's loads are entered and shown (default kg)\n"
-		 "  --cascade    also remove the athlete's blocks and tests (else rm refuses)\n"
+		 "  --cascade    also remove the athlete's blocks, tests and log (else rm refuses)\n"
 		 "  --yes        do not ask before removing",
 	.flags = CMD_DB,
 	.exec = exec_athlete,
