@@ -62,7 +62,7 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	};
 	struct audit_args a = { 0, SD_SESSION_CAP };
 	struct sd_table *csv = NULL;
-	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7 };
+	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7, 0, NULL };
 	int c, rc = 0, all = 0;
 	char *end;
 

@@ -1,11 +1,14 @@
 /* audit --all: the audits of all open blocks. Blocks share few templates, statuses and
- * lengths, so each (template, status, weeks) is parsed and audited once and reused. */
+ * lengths, so each (template, status, weeks) is parsed and audited once and reused. Next to
+ * each block's planned dose, what its athlete logged in it so far (the logged average weekly
+ * dose, cmd/logdata.h); a database without a log skips that query. */
 #include <stdlib.h>
 #include <string.h>
 
 #include "../io/audit_out.h"
 #include "audit_all.h"
 #include "dbutil.h"
+#include "logdata.h"
 
 #define CACHE_MAX 256   /* distinct (template, status, weeks) audits kept at once */
 
@@ -24,6 +27,8 @@ struct walk {
 	struct sd_sumout so;
 	struct entry *cache;
 	int n, first;
+	int any_logs;                /* the database holds logged sets */
+	struct sd_ctx lctx;          /* the run's context on this walk's database, for the log */
 	struct sd_err *e;
 };
 
@@ -64,19 +69,42 @@ static struct entry *lookup(struct walk *w, const struct db_block *b)
 	return x;
 }
 
+/* The block's logged average dose so far. */
+static int block_done(struct walk *w, const struct db_block *b, struct aout_done *d)
+{
+	struct tlog_span span;
+
+	memset(d, 0, sizeof *d);
+	if (!w->any_logs)
+		return 0;
+	if (logd_block_done(&w->lctx, b, d->dose, &span, w->e))
+		return -1;
+	d->logged = span.rows > 0;
+	if (span.to >= span.from) {
+		date_format(span.from, d->from);
+		date_format(span.to, d->to);
+	}
+	d->weeks = tlog_span_weeks(&span);
+	d->days = span.days;
+	return 0;
+}
+
 static int one_block(const struct db_block *b, void *arg)
 {
 	struct walk *w = arg;
 	struct entry *x = lookup(w, b);
+	struct aout_done done;
 
-	if (!x)
+	if (!x || block_done(w, b, &done))
 		return -1;
 	struct sd_audit_info in = { x->name, &x->prog, &w->ctx->profile, &x->au, b->athlete };
 	if (w->ctx->opt.format == SD_FMT_JSON) {
-		if (aout_json_item(w->ctx->out, &in, w->first))
+		if (aout_json_item_done(w->ctx->out, &in, &done, w->first))
 			return sd_fail(w->e, "out of memory");
 	} else {
+		w->so.done = &done;
 		aout_sum_rows(&w->so, &in);
+		w->so.done = NULL;
 	}
 	w->first = 0;
 	return 0;
@@ -87,7 +115,7 @@ int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
 	struct walk w;
 	struct sd_db *own = NULL;
 	char path[4096];
-	long long nopen;
+	long long nopen, nlogs;
 	int wa, wp, rc = -1;
 
 	memset(&w, 0, sizeof w);
@@ -105,10 +133,13 @@ int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
 		sd_fail(e, "out of memory");
 		goto done;
 	}
-	if (db_block_open_widths(w.db, &wa, &wp, &nopen, e))
+	if (db_block_open_widths(w.db, &wa, &wp, &nopen, e) || db_log_count(w.db, 0, &nlogs, e))
 		goto done;
+	w.any_logs = nlogs > 0;
+	w.lctx = *ctx;
+	w.lctx.db = w.db;
 	w.so = (struct sd_sumout){ ctx->out, ctx->opt.format == SD_FMT_CSV, 1,
-				   wa > 7 ? wa : 7, wp > 7 ? wp : 7 };
+				   wa > 7 ? wa : 7, wp > 7 ? wp : 7, 1, NULL };
 	if (ctx->opt.format == SD_FMT_JSON)
 		aout_json_begin(ctx->out);
 	else if (nopen)
@@ -119,8 +150,12 @@ int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
 		goto done;
 	if (ctx->opt.format == SD_FMT_JSON)
 		aout_json_end(ctx->out);
-	else if (nopen)
+	else if (nopen) {
+		if (ctx->opt.format == SD_FMT_TABLE)
+			fprintf(ctx->out, "\ndone: the weekly fractional sets logged in the block so far "
+				"(its start to today), per week; -: nothing logged\n");
 		cmd_print_caution(ctx);
+	}
 	rc = 0;
 done:
 	if (w.cache)

@@ -8,7 +8,9 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "../core/e1rm.h"
 #include "../core/response.h"
+#include "../core/tlog.h"
 #include "../core/units.h"
 #include "../io/audit_out.h"
 #include "../io/jsonout.h"
@@ -31,6 +33,7 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 		{ "prior-sd", required_argument, NULL, 'p' },
 		{ "test-error", required_argument, NULL, 't' },
 		{ "window", required_argument, NULL, 'w' },
+		{ "estimate-error", required_argument, NULL, 'E' },
 		{ NULL, 0, NULL, 0 },
 	};
 	long long v;
@@ -42,6 +45,7 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 	ra->ro.prior_sd = RESPD_PRIOR_PROFILE;
 	ra->ro.level = ctx->opt.level;
 	ra->ro.priors_only = 0;
+	ra->ro.est_sd = RESP_ESTIMATE_SD;
 	optind = 0;
 	opterr = 0;
 	while ((c = getopt_long(argc, argv, "", longopts, NULL)) != -1) {
@@ -59,6 +63,10 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 			break;
 		case 't':
 			if (dbu_num("--test-error", optarg, 0, 1, &ra->ro.test_sd, e))
+				return -1;
+			break;
+		case 'E':
+			if (dbu_num("--estimate-error", optarg, 0, 1, &ra->ro.est_sd, e))
 				return -1;
 			break;
 		case 'w':
@@ -84,12 +92,12 @@ static void set_row(struct sd_rec *r, const struct resp_row *w, int lb, int prec
 
 	rec_set(r, c++, "%lld", w->block);
 	rec_set(r, c++, "%s", w->lift);
-	rec_set(r, c++, "%s", w->pre->date);
-	rec_set(r, c++, "%s", w->post->date);
-	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->pre->e1rm_kg, lb));
-	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->post->e1rm_kg, lb));
-	rec_set(r, c++, "%d", w->pre->reps);
-	rec_set(r, c++, "%d", w->post->reps);
+	rec_set(r, c++, "%s", w->pre.date);
+	rec_set(r, c++, "%s", w->post.date);
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->pre.e1rm_kg, lb));
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->post.e1rm_kg, lb));
+	rec_set(r, c++, "%g", w->pre_reps);
+	rec_set(r, c++, "%g", w->post_reps);
 	rec_set(r, c++, pct, curve_pct(w->ob.obs));
 	rec_set(r, c++, precise ? "%.6f" : "%.4f", w->ob.obs);
 	rec_set(r, c++, precise ? "%.3f" : "%.1f", w->dose);
@@ -99,12 +107,19 @@ static void set_row(struct sd_rec *r, const struct resp_row *w, int lb, int prec
 	rec_set(r, c++, pct, curve_pct(w->fit.hi));
 	rec_set(r, c++, precise ? "%.3f" : "%.0f", w->fit.pctile);
 	rec_set(r, c++, "%s", curve_beyond_names(w->beyond, beyond, sizeof beyond));
+	/* Where the dose and each 1RM came from: new columns go last, so the older ones keep
+	 * their places for scripts. */
+	rec_set(r, c++, "%s", w->dose_logged ? "logged" : "planned");
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", w->planned);
+	rec_set(r, c++, "%s", w->pre_est ? "training" : "test");
+	rec_set(r, c++, "%s", w->post_est ? "training" : "test");
 }
 
-#define NCOLS 17
+#define NCOLS 21
 static const char *const heads[NCOLS] = { "block", "<lift", "<pre", "<post", "e1rm_pre",
 	"e1rm_post", "reps_pre", "reps_post", "change%", "lnRR", "dose", "weeks", "predicted%",
-	"obs_lo%", "obs_hi%", "percentile", "<beyond" };
+	"obs_lo%", "obs_hi%", "percentile", "<beyond", "<dose_from", "planned", "<pre_from",
+	"<post_from" };
 
 static void print_vars(FILE *f, const struct sd_profile *p, const struct resp_data *rs,
 		       int from_profile)
@@ -137,6 +152,10 @@ static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const st
 	fprintf(ctx->out, "test error %.3f per 1RM test (log scale, --test-error), more when pre and "
 		"post come from different rep counts;\ntests within %d days of a block's start and end "
 		"(--window)\n", ra->ro.test_sd, ra->window);
+	fprintf(ctx->out, "without a test there, the weekly best e1RM from logged sets nearest to it "
+		"(pre_from/post_from training:\nreps + RIR as reps to failure, at most %d; %s), test "
+		"error %.3f (--estimate-error)\n", TLOG_E1RM_MAX_RTF, e1rm_source(E1RM_DEFAULT),
+		ra->ro.est_sd);
 	print_vars(ctx->out, &ctx->profile, rs, ra->ro.prior_sd == RESPD_PRIOR_PROFILE);
 	fputc('\n', ctx->out);
 	if (rec_rows(r))
@@ -144,11 +163,13 @@ static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const st
 	else
 		fprintf(ctx->out, "no completed block%s with a test of the same lift near its start "
 			"and its end\n", ra->block ? " (of those asked)" : "");
-	fprintf(ctx->out, "\ndose: weekly fractional sets of the lift's prime movers; predicted: the "
-		"curve for that dose, the athlete's\nstatus and the block's length; obs_lo..obs_hi: "
-		"the %d%% interval where the change was expected\n(the curve's error, the athlete's "
-		"and the block's deviations, test error); percentile: where it fell;\nbeyond: values "
-		"outside the profile's evidence (held at its edge).\n\n", lvl);
+	fprintf(ctx->out, "\ndose: weekly fractional sets of the lift's prime movers: the logged "
+		"average over the block when\nit has logged sets (dose_from logged), else the "
+		"template's (planned, shown as planned too);\npredicted: the curve for that dose, the "
+		"athlete's status and the block's length; obs_lo..obs_hi:\nthe %d%% interval where the "
+		"change was expected (the curve's error, the athlete's and the block's\ndeviations, "
+		"test error); percentile: where it fell; beyond: values outside the profile's "
+		"evidence\n(held at its edge).\n\n", lvl);
 	fprintf(ctx->out, "personal response: %+.1f%% (lnRR %+.4f), %d%% interval %+.1f%% to %+.1f%%\n",
 		curve_pct(pr->mean), pr->mean, lvl, curve_pct(pr->lo), curve_pct(pr->hi));
 	if (pr->n)
@@ -169,19 +190,20 @@ static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const stru
 	const struct resp_vars *v = &rs->vars;
 	char *name = rec_json_string(a->name), *prof = json_profile_text(&ctx->profile);
 	char *why = rec_json_string(v->why);
-	char test[32], level[32], window[16], personal[640], vars[512];
+	char test[32], est[32], level[32], window[16], personal[640], vars[512];
 	const char *extra[] = { "athlete", name, "status", a->trained ? "\"trained\"" : "\"untrained\"",
-		"profile", prof, "test_error", test, "level", level, "window_days", window,
-		"variances", vars, "personal", personal, "caution", NULL, NULL };
+		"profile", prof, "test_error", test, "estimate_error", est, "level", level,
+		"window_days", window, "variances", vars, "personal", personal, "caution", NULL, NULL };
 	char *caution = rec_json_string(aout_caution);
 	int rc = 0;
 
-	extra[17] = caution;
+	extra[19] = caution;
 	if (!name || !prof || !why || !caution) {
 		rc = sd_fail(e, "out of memory");
 		goto done;
 	}
 	snprintf(test, sizeof test, "%.6g", ra->ro.test_sd);
+	snprintf(est, sizeof est, "%.6g", ra->ro.est_sd);
 	snprintf(level, sizeof level, "%.6g", ra->ro.level);
 	snprintf(window, sizeof window, "%d", ra->window);
 	snprintf(vars, sizeof vars,
@@ -214,12 +236,13 @@ static int print_csv(struct sd_ctx *ctx, const struct rargs *ra, const struct re
 	rec_print(r, ctx->out);
 	/* The personal estimate as a second table after a blank line. */
 	fprintf(ctx->out, "\nobservations,blocks,lnrr,sd,low,high,pct,pct_low,pct_high,unshrunk_lnrr,"
-		"unshrunk_se,data_weight,variances,var_athlete,var_block,test_error,level\n");
-	fprintf(ctx->out, "%d,%d,%.6f,%.6f,%.6f,%.6f,%.3f,%.3f,%.3f,%.6f,%.6f,%.4f,%s,%.8f,%.8f,%g,%g\n",
+		"unshrunk_se,data_weight,variances,var_athlete,var_block,test_error,level,"
+		"estimate_error\n");
+	fprintf(ctx->out, "%d,%d,%.6f,%.6f,%.6f,%.6f,%.3f,%.3f,%.3f,%.6f,%.6f,%.4f,%s,%.8f,%.8f,%g,%g,%g\n",
 		pr->n, rs->nblocks, pr->mean, pr->sd, pr->lo, pr->hi, curve_pct(pr->mean),
 		curve_pct(pr->lo), curve_pct(pr->hi), pr->raw, pr->raw_se, pr->weight,
 		v->estimated ? "roster-reml" : "priors", v->athlete, v->block, ra->ro.test_sd,
-		ra->ro.level);
+		ra->ro.level, ra->ro.est_sd);
 	return 0;
 }
 
@@ -267,7 +290,7 @@ const struct sd_cmd cmd_response = {
 	.name = "response",
 	.summary = "did the athlete respond as predicted? observed vs predicted gains per block",
 	.usage = "response ATHLETE [--block ID] [--priors] [--prior-sd SD] [--test-error SD]\n"
-		 "                  [--window DAYS]\n"
+		 "                  [--window DAYS] [--estimate-error SD]\n"
 		 "  for each completed block and tested lift with a test near the block's start and\n"
 		 "  one near its end: observed change, the curve's prediction for the dose of the\n"
 		 "  lift's prime movers, and the observation's percentile; then the athlete's\n"
@@ -281,7 +304,11 @@ const struct sd_cmd cmd_response = {
 		 "  --prior-sd SD    prior SD of the athlete's deviation, log scale (default: the\n"
 		 "                   square root of the profile's between-athlete variance)\n"
 		 "  --test-error SD  1RM test-retest error per test, log scale (default 0.03)\n"
-		 "  --window DAYS    how near a test must be to a block's start or end (default 14)",
+		 "  --window DAYS    how near a test must be to a block's start or end (default 14)\n"
+		 "  dose: the logged average weekly dose when the block has logged sets, else the\n"
+		 "  template's (dose_from says which); a lift with no test near the start or end is\n"
+		 "  judged by its best e1RM from logged sets there (pre_from/post_from 'training')\n"
+		 "  --estimate-error SD  error of such an estimate, log scale (default 0.06)",
 	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,
 	.exec = exec_response,
 };

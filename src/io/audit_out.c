@@ -173,16 +173,34 @@ int aout_muscle_rows(struct sd_table *t, const struct sd_audit_info *in, int wit
 void aout_sum_head(const struct sd_sumout *o)
 {
 	if (o->csv) {
-		fprintf(o->f, "%sprogram,muscle,fractional,gain_pct,curve_low,curve_high,athlete_low,"
+		fprintf(o->f, "%sprogram,muscle,fractional,%sgain_pct,curve_low,curve_high,athlete_low,"
 			"athlete_high,plus1_pct,plus1_low,plus1_high,zone,beyond_evidence\n",
-			o->with_athlete ? "athlete," : "");
+			o->with_athlete ? "athlete," : "", o->with_done ? "done," : "");
 		return;
 	}
 	if (o->with_athlete)
 		fprintf(o->f, "%-*s  ", o->wa, "athlete");
-	fprintf(o->f, "%-*s  %-11s  %10s  %6s  %8s  %8s  %10s  %10s  %6s  %8s  %8s  %s\n", o->wp,
-		"program", "muscle", "fractional", "gain%", "curve_lo", "curve_hi", "athlete_lo",
-		"athlete_hi", "+1set%", "+1set_lo", "+1set_hi", "zone");
+	fprintf(o->f, "%-*s  %-11s  %10s  ", o->wp, "program", "muscle", "fractional");
+	if (o->with_done)
+		fprintf(o->f, "%6s  ", "done");
+	fprintf(o->f, "%6s  %8s  %8s  %10s  %10s  %6s  %8s  %8s  %s\n", "gain%", "curve_lo",
+		"curve_hi", "athlete_lo", "athlete_hi", "+1set%", "+1set_lo", "+1set_hi", "zone");
+}
+
+/* The logged dose of muscle m as a cell: empty when nothing was logged. */
+static void done_cell(const struct sd_sumout *o, int m)
+{
+	int logged = o->done && o->done->logged;
+
+	if (o->csv) {
+		if (logged)
+			fprintf(o->f, "%.2f", o->done->dose[m]);
+		fputc(',', o->f);
+	} else if (logged) {
+		fprintf(o->f, "%6.1f  ", o->done->dose[m]);
+	} else {
+		fprintf(o->f, "%6s  ", "-");
+	}
 }
 
 void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
@@ -197,8 +215,11 @@ void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
 				fputc(',', o->f);
 			}
 			tbl_csv_field(o->f, in->label);
-			fprintf(o->f, ",%s,%.2f,%.3f,%.3f,%.3f,%.3f,%.3f,%.4f,%.4f,%.4f,%s,%s\n",
-				muscle_name(m), r->dose.fractional, pct(r->pt.y), pct(r->pt.ci_lo),
+			fprintf(o->f, ",%s,%.2f,", muscle_name(m), r->dose.fractional);
+			if (o->with_done)
+				done_cell(o, m);
+			fprintf(o->f, "%.3f,%.3f,%.3f,%.3f,%.3f,%.4f,%.4f,%.4f,%s,%s\n",
+				pct(r->pt.y), pct(r->pt.ci_lo),
 				pct(r->pt.ci_hi), pct(r->pt.ath_lo), pct(r->pt.ath_hi), r->plus1.pct,
 				r->plus1.lo, r->plus1.hi, zone_name(r->zone),
 				curve_beyond_names(r->pt.beyond, beyond, sizeof beyond));
@@ -206,8 +227,12 @@ void aout_sum_rows(const struct sd_sumout *o, const struct sd_audit_info *in)
 		}
 		if (o->with_athlete)
 			fprintf(o->f, "%-*s  ", o->wa, in->athlete ? in->athlete : "");
-		fprintf(o->f, "%-*s  %-11s  %10.1f  %6.1f  %8.1f  %8.1f  %10.1f  %10.1f  %6.2f  %8.2f  "
-			"%8.2f  %s%s%s\n", o->wp, in->label, muscle_name(m), r->dose.fractional,
+		fprintf(o->f, "%-*s  %-11s  %10.1f  ", o->wp, in->label, muscle_name(m),
+			r->dose.fractional);
+		if (o->with_done)
+			done_cell(o, m);
+		fprintf(o->f, "%6.1f  %8.1f  %8.1f  %10.1f  %10.1f  %6.2f  %8.2f  "
+			"%8.2f  %s%s%s\n",
 			pct(r->pt.y), pct(r->pt.ci_lo), pct(r->pt.ci_hi), pct(r->pt.ath_lo),
 			pct(r->pt.ath_hi), r->plus1.pct, r->plus1.lo, r->plus1.hi, zone_name(r->zone),
 			r->pt.beyond & ~SD_BEYOND_DOSE ? ", beyond: " : "",
@@ -240,7 +265,40 @@ static cJSON *muscle_json(const struct sd_audit *a, int m)
 	return o;
 }
 
+/* "logged": the block's logged average weekly dose, or null. */
+static void done_json(cJSON *o, const struct aout_done *d)
+{
+	cJSON *l, *ms;
+
+	if (!d || !d->logged) {
+		cJSON_AddNullToObject(o, "logged");
+		return;
+	}
+	if (!(l = cJSON_AddObjectToObject(o, "logged")))
+		return;
+	cJSON_AddStringToObject(l, "from", d->from);
+	cJSON_AddStringToObject(l, "to", d->to);
+	json_num(l, "weeks", d->weeks, 2);
+	cJSON_AddNumberToObject(l, "days", d->days);
+	if (!(ms = cJSON_AddArrayToObject(l, "muscles")))
+		return;
+	for (int m = 0; m < SD_NMUSCLES; m++) {
+		cJSON *x = cJSON_CreateObject();
+		if (!x)
+			return;
+		cJSON_AddStringToObject(x, "muscle", muscle_name(m));
+		json_num(x, "done", d->dose[m], 2);
+		cJSON_AddItemToArray(ms, x);
+	}
+}
+
 int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
+{
+	return aout_json_item_done(f, in, NULL, first);
+}
+
+int aout_json_item_done(FILE *f, const struct sd_audit_info *in, const struct aout_done *done,
+			int first)
 {
 	const struct sd_audit *a = in->audit;
 	cJSON *o = cJSON_CreateObject(), *ms, *ws;
@@ -266,6 +324,8 @@ int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
 	ms = cJSON_AddArrayToObject(o, "muscles");
 	for (int m = 0; ms && m < SD_NMUSCLES; m++)
 		cJSON_AddItemToArray(ms, muscle_json(a, m));
+	if (done)
+		done_json(o, done);
 	ws = cJSON_AddArrayToObject(o, "warnings");
 	for (int i = 0; ws && i < a->nwarn; i++) {
 		cJSON *w = cJSON_CreateObject();

@@ -194,7 +194,7 @@ head -3 "$TMP/out" >"$TMP/obs.csv"
 sed -n '5,6p' "$TMP/out" >"$TMP/pers.csv"
 check "response CSV: two observations and the personal table" test "$(wc -l <"$TMP/obs.csv")" -eq 3
 # block,lift,pre,post,e1rm_pre,e1rm_post,reps_pre,reps_post,change%,lnRR,dose,weeks,predicted%,
-# obs_lo%,obs_hi%,percentile,beyond
+# obs_lo%,obs_hi%,percentile,beyond,dose_from,planned,pre_from,post_from
 check "response: observations, predictions and percentiles agree with the hand computation" awk -F, '
 function Phi(z,  t, p, s) {   # Abramowitz & Stegun 26.2.17, |error| < 7.5e-8
 	s = z < 0; if (s) z = -z
@@ -224,8 +224,8 @@ END {
 	exit bad
 }' "$TMP/obs.csv"
 has obs.csv '^2,bench press,2024-01-05,2024-03-04,100\.000,110\.000,1,1,' "block A pairs the tests nearest its start and end"
-has obs.csv ',47\.74[0-9],$' "block A percentile 47.743 (hand)"
-has obs.csv ',35\.95[0-9],$' "block B percentile 35.956 (hand)"
+has obs.csv ',47\.74[0-9],,planned,8\.000,test,test$' "block A percentile 47.743 (hand), from the planned dose and tests"
+has obs.csv ',35\.95[0-9],,planned,8\.000,test,test$' "block B percentile 35.956 (hand), from the planned dose and tests"
 # observations,blocks,lnrr,sd,low,high,...,variances,var_athlete,var_block,test_error,level
 check "personal response: the posterior mean and SD agree with the hand computation" awk -F, -v want="$(cat "$TMP/want")" '
 NR == 2 { split(want, w, " "); d1 = $3 - w[1]; d2 = $4 - w[2]
