@@ -387,15 +387,33 @@ check "all 50 tests landed" test "$(count tests)" -eq $((tests_before + 50))
 run 0 "$SD" db check
 
 # ---------------------------------------------------------------- the demo database
-# db/demo.sql (invented gym and athletes) loads into a scratch file and gives every command
-# something to show.
+# db/demo.sql (invented gym and athletes) and the invented log of tests/demo_logs.awk load
+# into a scratch file and give every command something to show.
 run 0 sh "$ROOT/tests/demo_db.sh" "$SD" "$TMP/demo.db"
 run 0 "$SD" --db "$TMP/demo.db" athlete list
 check "demo: 8 invented athletes" test "$(grep -c 'invented demo athlete' "$TMP/out")" -eq 8
 check "demo: both training statuses" sh -c "grep -q ' trained ' '$TMP/out' && grep -q ' untrained ' '$TMP/out'"
 check "demo: 2 or 3 completed blocks per athlete" test "$(sqlite3 "$TMP/demo.db" "SELECT count(*) FROM (SELECT athlete_id, count(*) n FROM blocks WHERE end_date IS NOT NULL GROUP BY athlete_id) WHERE n BETWEEN 2 AND 3")" -eq 8
 run 0 "$SD" --db "$TMP/demo.db" response "Caspian Hollowell"
-has out 'from 9 observations in 3 completed blocks'
+has out 'from [0-9]+ observations in 3 completed blocks'
+has out ' dose_from +planned +pre_from +post_from$' "demo response: the dose's source and the planned dose beside it"
+# The invented log: some athletes adherent, some not, one who trained far less than planned.
+# The ratio of the logged dose to the planned one, averaged over each athlete's rows.
+done_ratio() {
+	"$SD" --db "$TMP/demo.db" response "$1" --format csv | awk -F, 'NF > 10 && $(NF-3) ~ /^(logged|planned)$/ {
+		n++; r += $(NF-10) / $(NF-2); if ($(NF-3) != "logged") bad = 1 }
+		END { if (bad || !n) print -1; else printf "%.2f\n", r / n }'
+}
+check "demo: Otto Vantwell did the plan (logged dose 95 % of planned or more)" \
+	awk -v r="$(done_ratio "Otto Vantwell")" 'BEGIN { exit !(r >= 0.95) }'
+check "demo: Maren Oakhollow is adherent (85 % or more)" \
+	awk -v r="$(done_ratio "Maren Oakhollow")" 'BEGIN { exit !(r >= 0.85) }'
+check "demo: Juno Saltmarsh is not (50 to 80 %)" \
+	awk -v r="$(done_ratio "Juno Saltmarsh")" 'BEGIN { exit !(r >= 0.5 && r <= 0.8) }'
+check "demo: Caspian Hollowell trained far less than planned (under half)" \
+	awk -v r="$(done_ratio "Caspian Hollowell")" 'BEGIN { exit !(r >= 0 && r < 0.5) }'
+run 0 "$SD" --db "$TMP/demo.db" log weeks "Caspian Hollowell" --format csv
+check "demo: log weeks shows sessions missed" awk -F, '$1 ~ /-W/ && $6 > 0 { m = 1 } END { exit !m }' "$TMP/out"
 run 0 "$SD" --db "$TMP/demo.db" audit --all --format csv
 check "demo: audit --all gives 16 rows for each of the 8 open blocks" test "$(wc -l <"$TMP/out")" -eq 129
 
