@@ -14,8 +14,13 @@
 -- index. Two identical sets logged as two rows on one day are two sets (ordinals 1 and 2).
 -- `source` (file and line of the first import) is for the user only and not part of it.
 --
--- The unique index is also the index by athlete and date: it holds every column the
--- weekly aggregation reads, so that query never visits the table.
+-- The unique index is also the index by athlete and date (a block's span is read through it).
+--
+-- log_weeks holds the same sets summed per athlete, ISO week (its Monday), exercise and RIR,
+-- with the days of the week they were logged on (bit d: day d, 0 Monday), so the weekly view
+-- of years of logs reads one row per exercise and effort a week rather than every set. It is
+-- derived: db_log_add keeps it in step in the same transaction, and `db recover` rebuilds it
+-- from the rows of logs.
 
 CREATE TABLE logs (
 	id         INTEGER PRIMARY KEY,
@@ -35,3 +40,14 @@ CREATE TABLE logs (
 );
 CREATE UNIQUE INDEX logs_by_athlete ON logs(athlete_id, log_date, exercise, rir, sets, reps,
                                             timed, load, unit, ordinal);
+
+CREATE TABLE log_weeks (
+	athlete_id INTEGER NOT NULL REFERENCES athletes(id) ON DELETE RESTRICT,
+	monday     TEXT NOT NULL CHECK (date(julianday(monday)) IS monday AND
+	                            strftime('%w', monday) = '1'),
+	exercise   TEXT NOT NULL,
+	rir        REAL NOT NULL,
+	sets       INTEGER NOT NULL CHECK (sets >= 1),
+	days       INTEGER NOT NULL CHECK (days BETWEEN 1 AND 127),
+	PRIMARY KEY (athlete_id, monday, exercise, rir)
+) WITHOUT ROWID;

@@ -377,6 +377,15 @@ static int sum_row(const struct db_log_sum *s, void *arg)
 	return 0;
 }
 
+static int week_row(const struct db_log_week *w, void *arg)
+{
+	char *buf = arg;
+	size_t used = strlen(buf);
+	snprintf(buf + used, 512 - used, "%s %s %g %d %u; ", w->monday, w->exercise, w->rir,
+		 w->sets, w->days);
+	return 0;
+}
+
 static struct db_log log_row(long long athlete, const char *date, const char *ex, int sets,
 			     int reps, double rir, double load, const char *unit, int ordinal)
 {
@@ -455,6 +464,14 @@ static void logs(void **state)
 	memset(sums, 0, sizeof sums);
 	assert_int_equal(db_log_sums(db, b, NULL, NULL, 4, sum_row, sums, &e), 0);
 	assert_int_equal(sums[1], 2);   /* RIR 6 is above the limit */
+	/* The weekly sums grew with the new rows only: the three squat rows of Thursday
+	 * 2026-12-31 (day bit 3) are 9 sets in the week of Monday 2026-12-28. */
+	char weeks[512] = "";
+	assert_int_equal(db_log_weeks(db, a, NULL, NULL, week_row, weeks, &e), 0);
+	assert_string_equal(weeks, "2026-12-28 back squat 2 9 8; 2027-01-04 bench press -1 1 1; ");
+	weeks[0] = '\0';
+	assert_int_equal(db_log_weeks(db, a, "2027-01-01", NULL, week_row, weeks, &e), 0);
+	assert_string_equal(weeks, "2027-01-04 bench press -1 1 1; ");
 	/* The athlete cannot go while logged rows remain, unless asked. */
 	assert_int_equal(db_begin(db, &e), 0);
 	assert_int_equal(db_athlete_rm(db, b, 0, &e), -1);

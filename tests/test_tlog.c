@@ -90,8 +90,7 @@ static struct tlog_daysets ds(const char *date, int ex, int within, int above, i
 	return d;
 }
 
-/* The small log, weights 1 (prime mover) and 0.5 (synergist), RIR limit 4 (the store sums the
- * sets per day and exercise against it):
+/* The small log, weights 1 (prime mover) and 0.5 (synergist), RIR limit 4:
  *   2026-12-24 Thu (2026-W52)  bench 3 @ RIR 2              before the weeks: ignored
  *   2026-12-29 Tue (2026-W53)  bench 3 @ RIR 2, squat 4 @ RIR 1
  *   2026-12-31 Thu (2026-W53)  bench 2 @ RIR 6 (easy), bench 1 without an effort (counts)
@@ -101,7 +100,27 @@ static struct tlog_daysets ds(const char *date, int ex, int within, int above, i
  * 2026-W53: chest 3 + 1 = 4; triceps and front delts 0.5 x 4 = 2; quads 4 + 3 = 7; glutes 4;
  *           lower back 0.5 x 4 = 2; upper back 0.5 x 3 = 1.5; hard sets 3 + 4 + 1 + 3 = 11,
  *           easy 2; sessions Tue, Thu, Sun = 3.
- * 2027-W01: chest 4; triceps 2; quads 5; glutes 5; lower back 2.5; sessions 2. */
+ * 2027-W01: chest 4; triceps 2; quads 5; glutes 5; lower back 2.5; sessions 2.
+ * As the store sums it per week, exercise and RIR (days: bit 0 Monday ... bit 6 Sunday), and
+ * per day and exercise (for a block's span). */
+static const struct tlog_weekrow *small_weeks(int *n)
+{
+	static struct tlog_weekrow v[9];
+	long w52 = day("2026-12-21"), w53 = day("2026-12-28"), w01 = day("2027-01-04");
+	int k = 0;
+	v[k++] = (struct tlog_weekrow){ w52, BENCH, 2, 3, 1u << 3 };
+	v[k++] = (struct tlog_weekrow){ w53, BENCH, -1, 1, 1u << 3 };
+	v[k++] = (struct tlog_weekrow){ w53, BENCH, 2, 3, 1u << 1 };
+	v[k++] = (struct tlog_weekrow){ w53, BENCH, 6, 2, 1u << 3 };
+	v[k++] = (struct tlog_weekrow){ w53, SQUAT, 1, 4, 1u << 1 };
+	v[k++] = (struct tlog_weekrow){ w53, CLEAN, 6, 3, 1u << 6 };
+	v[k++] = (struct tlog_weekrow){ w01, SQUAT, 0, 5, 1u << 0 };
+	v[k++] = (struct tlog_weekrow){ w01, BENCH, 3, 4, 1u << 1 };
+	v[k++] = (struct tlog_weekrow){ w01, -1, 2, 1, 1u << 1 };
+	*n = k;
+	return v;
+}
+
 static const struct tlog_daysets *small_log(int *n)
 {
 	static struct tlog_daysets v[8];
@@ -123,7 +142,7 @@ static void weekly_sets(void **state)
 	struct tlog_weeks ws;
 	struct sd_err e;
 	int n;
-	const struct tlog_daysets *v = small_log(&n);
+	const struct tlog_weekrow *v = small_weeks(&n);
 	(void)state;
 
 	assert_int_equal(tlog_weeks_init(&ws, day("2026-12-31"), day("2027-01-05"), &e), 0);
@@ -134,7 +153,7 @@ static void weekly_sets(void **state)
 	assert_int_equal(ws.w[1].year, 2027);
 	assert_int_equal(ws.w[1].week, 1);
 	for (int i = 0; i < n; i++)
-		tlog_weeks_add(&ws, &lib, 1.0, 0.5, &v[i]);
+		tlog_weeks_add(&ws, &lib, 1.0, 0.5, 4, &v[i]);
 
 	assert_near(ws.w[0].done[SD_CHEST], 4, 1e-12);
 	assert_near(ws.w[0].done[SD_TRICEPS], 2, 1e-12);
@@ -160,6 +179,17 @@ static void weekly_sets(void **state)
 	assert_int_equal(tlog_weeks_find(&ws, day("2027-01-11")), -1);
 	assert_int_equal(tlog_weeks_find(&ws, day("2026-12-27")), -1);
 	tlog_weeks_free(&ws);
+
+	/* A stricter limit (RIR 1): bench at RIR 2 and 3 and the unknown exercise's set at RIR 2
+	 * no longer count, so 2027-W01 keeps one session (Monday) and 5 easy sets. */
+	assert_int_equal(tlog_weeks_init(&ws, day("2026-12-28"), day("2027-01-04"), &e), 0);
+	for (int i = 0; i < n; i++)
+		tlog_weeks_add(&ws, &lib, 1.0, 0.5, 1, &v[i]);
+	assert_near(ws.w[0].done[SD_CHEST], 1, 1e-12);
+	assert_int_equal(ws.w[0].sessions, 3);
+	assert_int_equal(ws.w[1].sessions, 1);
+	assert_int_equal(ws.w[1].easy_sets, 5);
+	tlog_weeks_free(&ws);
 }
 
 /* Two blocks share 2026-W53: A (chest 8 a week, 3 days) runs Wed 2026-12-23 to Thu
@@ -175,14 +205,14 @@ static void plan_and_adherence(void **state)
 	struct sd_err e;
 	double a[SD_NMUSCLES] = { 0 }, b[SD_NMUSCLES] = { 0 };
 	int n;
-	const struct tlog_daysets *v = small_log(&n);
+	const struct tlog_weekrow *v = small_weeks(&n);
 	(void)state;
 
 	a[SD_CHEST] = 8;
 	b[SD_CHEST] = 10;
 	assert_int_equal(tlog_weeks_init(&ws, day("2026-12-28"), day("2027-01-10"), &e), 0);
 	for (int i = 0; i < n; i++)
-		tlog_weeks_add(&ws, &lib, 1.0, 0.5, &v[i]);
+		tlog_weeks_add(&ws, &lib, 1.0, 0.5, 4, &v[i]);
 	tlog_weeks_plan(&ws, 1, day("2026-12-23"), day("2026-12-31"), a, 3);
 	tlog_weeks_plan(&ws, 2, day("2027-01-01"), day("2027-01-28"), b, 4);
 

@@ -166,10 +166,34 @@ int logd_block_done(struct sd_ctx *ctx, const struct db_block *b, double dose[SD
 	return 0;
 }
 
+struct weeks_walk {
+	struct tlog_weekrow *v;
+	int n, cap;
+	struct names *nm;
+	struct sd_err *e;
+};
+
+static int one_week(const struct db_log_week *w, void *arg)
+{
+	struct weeks_walk *x = arg;
+
+	if (x->n == x->cap) {
+		int ncap = x->cap ? 2 * x->cap : 256;
+		struct tlog_weekrow *nv = realloc(x->v, (size_t)ncap * sizeof *nv);
+		if (!nv)
+			return sd_fail(x->e, "out of memory");
+		x->v = nv;
+		x->cap = ncap;
+	}
+	x->v[x->n++] = (struct tlog_weekrow){ day_of(w->monday), name_index(x->nm, w->exercise),
+					      w->rir, w->sets, w->days };
+	return 0;
+}
+
 int logd_weeks(struct sd_ctx *ctx, long long athlete_id, const struct db_block *b, int nb,
 	       long long only, struct tlog_weeks *ws, struct sd_err *e)
 {
-	struct logd_days d;
+	struct weeks_walk x = { NULL, 0, 0, NULL, e };
 	long today, lo = 0, hi = -1, s, t;
 	char from[DATE_LEN], to[DATE_LEN];
 	int rc = -1, have = 0;
@@ -187,17 +211,17 @@ int logd_weeks(struct sd_ctx *ctx, long long athlete_id, const struct db_block *
 		hi = have && hi > t ? hi : t;
 		have = 1;
 	}
-	if (only) {
-		if (!have)
-			return 0;
-		date_format(lo, from);
-		date_format(hi, to);
-	}
-	if (logd_days(ctx, athlete_id, only ? from : NULL, only ? to : NULL, &d, e))
-		return -1;
-	if (d.n) {
-		lo = have && lo < d.v[0].day ? lo : d.v[0].day;
-		hi = have && hi > d.v[d.n - 1].day ? hi : d.v[d.n - 1].day;
+	if (only && !have)
+		return 0;
+	/* A block's weeks are whole weeks: everything logged in them shows. */
+	date_format(tlog_monday(lo), from);
+	date_format(tlog_monday(hi), to);
+	if (!(x.nm = names_new(&ctx->lib, e)) ||
+	    db_log_weeks(ctx->db, athlete_id, only ? from : NULL, only ? to : NULL, one_week, &x, e))
+		goto done;
+	if (x.n) {
+		lo = have && lo < x.v[0].monday ? lo : x.v[0].monday;
+		hi = have && hi > x.v[x.n - 1].monday ? hi : x.v[x.n - 1].monday;
 		have = 1;
 	}
 	if (!have) {
@@ -206,8 +230,9 @@ int logd_weeks(struct sd_ctx *ctx, long long athlete_id, const struct db_block *
 	}
 	if (tlog_weeks_init(ws, lo, hi, e))
 		goto done;
-	for (int i = 0; i < d.n; i++)
-		tlog_weeks_add(ws, &ctx->lib, ctx->profile.w_direct, ctx->profile.w_indirect, &d.v[i]);
+	for (int i = 0; i < x.n; i++)
+		tlog_weeks_add(ws, &ctx->lib, ctx->profile.w_direct, ctx->profile.w_indirect,
+			       ctx->opt.max_rir, &x.v[i]);
 	for (int i = 0; i < nb; i++) {
 		double dose[SD_NMUSCLES];
 		int sessions;
@@ -224,7 +249,8 @@ int logd_weeks(struct sd_ctx *ctx, long long athlete_id, const struct db_block *
 done:
 	if (rc)
 		tlog_weeks_free(ws);
-	logd_days_free(&d);
+	free(x.v);
+	free(x.nm);
 	return rc;
 }
 

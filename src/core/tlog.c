@@ -145,26 +145,30 @@ static void add_dose(double sum[SD_NMUSCLES], const struct sd_library *lib, doub
 }
 
 void tlog_weeks_add(struct tlog_weeks *ws, const struct sd_library *lib, double w_direct,
-		    double w_indirect, const struct tlog_daysets *d)
+		    double w_indirect, int max_rir, const struct tlog_weekrow *r)
 {
-	int k = tlog_weeks_find(ws, d->day), hard = hard_sets(lib, d);
+	int k = tlog_weeks_find(ws, r->monday), ungraded = r->ex >= 0 && lib->ex[r->ex].ungraded;
+	unsigned fresh;
 	struct tlog_week *w;
 
 	if (k < 0)
 		return;
 	w = &ws->w[k];
-	w->hard_sets += hard;
-	w->easy_sets += d->within + d->unrecorded + d->above - hard;
-	if (!hard)
-		return;
-	if (d->ex < 0) {
-		ws->unknown_sets += hard;
+	if (!(r->rir < 0 || r->rir <= max_rir || ungraded)) {
+		w->easy_sets += r->sets;
 		return;
 	}
-	if (!(w->days & 1u << (d->day - w->monday)))
+	w->hard_sets += r->sets;
+	if (r->ex < 0) {
+		ws->unknown_sets += r->sets;
+		return;
+	}
+	/* A day counts once however many exercises and efforts were logged on it. */
+	fresh = r->days & 0x7fu & ~(unsigned)w->days;
+	for (; fresh; fresh &= fresh - 1)
 		w->sessions++;
-	w->days |= (unsigned char)(1u << (d->day - w->monday));
-	add_dose(w->done, lib, w_direct, w_indirect, d->ex, hard);
+	w->days |= (unsigned char)(r->days & 0x7fu);
+	add_dose(w->done, lib, w_direct, w_indirect, r->ex, r->sets);
 }
 
 void tlog_weeks_plan(struct tlog_weeks *ws, long long block, long start, long end,

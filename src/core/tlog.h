@@ -84,11 +84,21 @@ struct tlog_weeks {
 	int unknown_sets;                /* hard sets of exercises the library does not know */
 };
 
+/* One exercise's sets at one effort over one ISO week, as the store keeps them summed. */
+struct tlog_weekrow {
+	long monday;
+	int ex;                  /* library index, -1 when the library no longer knows it */
+	double rir;              /* -1: no effort recorded */
+	int sets;
+	unsigned days;           /* bit d: logged on day d of the week (0 Monday) */
+};
+
 /* The weeks from the one holding `from` to the one holding `to`, all empty. */
 int tlog_weeks_init(struct tlog_weeks *ws, long from, long to, struct sd_err *e);
-/* Adds one exercise's sets of one day (a day outside the weeks is ignored). */
+/* Adds one week row (a week outside the weeks is ignored); its sets are hard when the RIR is
+ * at most max_rir, not recorded, or the exercise is not graded by RIR. */
 void tlog_weeks_add(struct tlog_weeks *ws, const struct sd_library *lib, double w_direct,
-		    double w_indirect, const struct tlog_daysets *d);
+		    double w_indirect, int max_rir, const struct tlog_weekrow *r);
 /* Adds a block's plan: each week gets dose (weekly fractional sets per muscle) and sessions
  * (training days a week) times the share of its 7 days inside [start, end]; the week's
  * block becomes this one when it has more days in the week than the block recorded so far

@@ -87,12 +87,23 @@ struct db_log_sum {
 	int within, above, unrecorded;
 };
 
+/* The log summed per ISO week (its Monday), exercise and RIR (-1: not recorded), with the days
+ * of the week the sets were logged on (bit d: day d, 0 Monday). */
+struct db_log_week {
+	char monday[DB_DATE_LEN];
+	char exercise[DB_NAME_MAX];
+	double rir;
+	int sets;
+	unsigned days;
+};
+
 /* Called once per record by the *_each functions; a non-zero return stops the walk and is
  * returned (a callback that fails fills its own error). */
 typedef int (*db_block_fn)(const struct db_block *b, void *arg);
 /* Log rows; athlete is the athlete's name. */
 typedef int (*db_log_fn)(const struct db_log *r, const char *athlete, void *arg);
 typedef int (*db_log_sum_fn)(const struct db_log_sum *s, void *arg);
+typedef int (*db_log_week_fn)(const struct db_log_week *w, void *arg);
 /* Hands out the rows to add one by one: 1 with *out filled, 0 at the end, -1 on an error
  * (filled by the producer). */
 typedef int (*db_log_next_fn)(void *arg, struct db_log *out, struct sd_err *e);
@@ -202,7 +213,7 @@ int db_test_list(struct sd_db *db, long long athlete_id, const char *lift, struc
 /* The training log (store/logs.c). */
 /* Adds rows inside the caller's transaction (db_begin .. db_commit), all through one prepared
  * statement; a row identical to a stored one (same identity, see db/002_logs.sql) is
- * skipped. *added gets how many were new. */
+ * skipped. *added gets how many were new; the weekly sums (db_log_weeks) grow by them. */
 int db_log_add(struct sd_db *db, db_log_next_fn next, void *arg, long long *added,
 	       struct sd_err *e);
 /* Walks the rows of one athlete (athlete_id > 0) or of all, by athlete name, date, id,
@@ -213,6 +224,11 @@ int db_log_each(struct sd_db *db, long long athlete_id, const char *from, const 
  * (NULL: open), counting sets against max_rir. Reads the index only. */
 int db_log_sums(struct sd_db *db, long long athlete_id, const char *from, const char *to,
 		double max_rir, db_log_sum_fn fn, void *arg, struct sd_err *e);
+/* Walks one athlete's log summed per week, exercise and RIR, for the weeks whose Monday is
+ * between from and to (NULL: open), in week order. Reads one row per week, exercise and
+ * effort however many sets were logged. */
+int db_log_weeks(struct sd_db *db, long long athlete_id, const char *from, const char *to,
+		 db_log_week_fn fn, void *arg, struct sd_err *e);
 /* Rows stored for an athlete (athlete_id > 0) or in all; and whether any exist between
  * from and to. */
 int db_log_count(struct sd_db *db, long long athlete_id, long long *n, struct sd_err *e);
