@@ -37,37 +37,54 @@ static int find_athlete(void *arg, const char *name, long long *id, int *lb, str
 	return 0;
 }
 
-/* Hands the rows read to the store one by one, as db_log rows. */
+/* Hands the rows read to the store one by one, as db_log rows. Neighbouring rows mostly
+ * share their day, exercise, effort and unit, so those texts are made only when they change:
+ * formatting them for every row cost as much as storing it. */
 struct feed {
 	const struct sd_library *lib;
 	const struct logio_rows *rows;
 	const char *path;
 	int i;
+	struct db_log last;            /* the texts of the previous row */
+	long day;
+	int ex, scale;
+	double lo, hi;
 };
 
 static int next_row(void *arg, struct db_log *out, struct sd_err *e)
 {
 	struct feed *f = arg;
 	const struct tlog_entry *en;
+	struct db_log *r = &f->last;
 
 	(void)e;
 	if (f->i == f->rows->n)
 		return 0;
 	en = &f->rows->v[f->i++];
-	memset(out, 0, sizeof *out);
-	out->athlete_id = en->athlete_id;
-	date_format(en->day, out->date);
-	snprintf(out->exercise, sizeof out->exercise, "%s", f->lib->ex[en->ex].name);
-	out->sets = en->sets;
-	out->reps = en->reps;
-	out->timed = en->timed;
-	out->rir = en->rir;
-	tlog_effort_text(en->scale, en->eff_lo, en->eff_hi, out->effort, sizeof out->effort);
-	out->load = en->load;
-	snprintf(out->unit, sizeof out->unit, "%s", en->unit == TLOG_UNIT_LB ? "lb" :
-		 en->unit == TLOG_UNIT_KG ? "kg" : "");
-	out->ordinal = en->ordinal;
-	snprintf(out->source, sizeof out->source, "%.80s line %d", f->path, en->line);
+	if (f->i == 1 || en->day != f->day) {
+		date_format(en->day, r->date);
+		f->day = en->day;
+	}
+	if (f->i == 1 || en->ex != f->ex) {
+		snprintf(r->exercise, sizeof r->exercise, "%s", f->lib->ex[en->ex].name);
+		f->ex = en->ex;
+	}
+	if (f->i == 1 || en->scale != f->scale || en->eff_lo != f->lo || en->eff_hi != f->hi) {
+		tlog_effort_text(en->scale, en->eff_lo, en->eff_hi, r->effort, sizeof r->effort);
+		f->scale = en->scale;
+		f->lo = en->eff_lo;
+		f->hi = en->eff_hi;
+	}
+	r->athlete_id = en->athlete_id;
+	r->sets = en->sets;
+	r->reps = en->reps;
+	r->timed = en->timed;
+	r->rir = en->rir;
+	r->load = en->load;
+	memcpy(r->unit, en->unit == TLOG_UNIT_LB ? "lb" : en->unit == TLOG_UNIT_KG ? "kg" : "", 3);
+	r->ordinal = en->ordinal;
+	snprintf(r->source, sizeof r->source, "%.80s line %d", f->path, en->line);
+	*out = *r;
 	return 1;
 }
 
@@ -107,7 +124,11 @@ static int do_import(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e
 	if (logio_read(argv[optind], &src, &rows, e) || tlog_ordinals(rows.v, rows.n, e))
 		goto done;
 	/* Every row is checked before the first write; the rows then go in as one transaction. */
-	struct feed f = { &ctx->lib, &rows, argv[optind], 0 };
+	struct feed f;
+	memset(&f, 0, sizeof f);
+	f.lib = &ctx->lib;
+	f.rows = &rows;
+	f.path = argv[optind];
 	if (db_begin(ctx->db, e) || db_log_add(ctx->db, next_row, &f, &added, e) ||
 	    db_commit(ctx->db, e))
 		goto done;

@@ -14,11 +14,34 @@
 	"effort, load, unit, ordinal, source) VALUES (?1, ?2, ?3, ?4, ?5, ?6, ?7, ?8, ?9, ?10, " \
 	"?11, ?12) ON CONFLICT DO NOTHING"
 
-static int check_row(const struct db_log *r, struct sd_err *e)
+/* The texts a row stores are checked as every name the store writes; a text equal to the
+ * previous row's was checked then. */
+static int check_text(const char *what, const char *s, char *prev, size_t n, struct sd_err *e)
 {
-	if (text_check("exercise name", r->exercise, strlen(r->exercise), e) ||
-	    text_check("effort", r->effort, strlen(r->effort), e) ||
-	    text_check("log source", r->source, strlen(r->source), e))
+	if (!strcmp(s, prev))
+		return 0;
+	if (text_check(what, s, strlen(s), e))
+		return -1;
+	snprintf(prev, n, "%s", s);
+	return 0;
+}
+
+struct checked {
+	char exercise[DB_NAME_MAX], effort[DB_EFFORT_MAX], source[DB_SOURCE_MAX];
+};
+
+static int check_row(const struct db_log *r, struct checked *c, struct sd_err *e)
+{
+	/* The source differs on every row only by its line number, written by setdose. */
+	const char *line = strstr(r->source, " line ");
+	char path[DB_SOURCE_MAX];
+
+	snprintf(path, sizeof path, "%.*s", line ? (int)(line - r->source) : (int)strlen(r->source),
+		 r->source);
+	if (check_text("exercise name", r->exercise, c->exercise, sizeof c->exercise, e) ||
+	    check_text("effort", r->effort, c->effort, sizeof c->effort, e) ||
+	    check_text("log source", path, c->source, sizeof c->source, e) ||
+	    (line && text_check("log source", line, strlen(line), e)))
 		return -1;
 	return 0;
 }
@@ -40,6 +63,8 @@ struct wkey {
 struct wsum {
 	struct wkey *v;
 	size_t cap, n;
+	char date[DB_DATE_LEN];     /* the last date parsed, and its day */
+	long day;
 };
 
 static size_t whash(const struct wkey *k)
@@ -53,7 +78,7 @@ static size_t whash(const struct wkey *k)
 
 static int wsum_grow(struct wsum *w);
 
-/* Adds sets logged on `day` to the key's sums. */
+/* Adds sets logged on `date` to the key's sums. */
 static int wsum_add(struct wsum *w, long long athlete, const char *date, const char *ex,
 		    double rir, int sets)
 {
@@ -61,8 +86,13 @@ static int wsum_add(struct wsum *w, long long athlete, const char *date, const c
 	long day;
 	size_t i;
 
-	if (date_parse(date, &day, NULL))
-		return -1;
+	/* Rows come day by day: parse a date once. */
+	if (strcmp(date, w->date)) {
+		if (date_parse(date, &w->day, NULL))
+			return -1;
+		snprintf(w->date, sizeof w->date, "%s", date);
+	}
+	day = w->day;
 	memset(&k, 0, sizeof k);
 	k.athlete = athlete;
 	/* Day 0 (1970-01-01) was a Thursday: Monday is 3 days before. */
@@ -88,7 +118,7 @@ static int wsum_add(struct wsum *w, long long athlete, const char *date, const c
 
 static int wsum_grow(struct wsum *w)
 {
-	struct wsum bigger = { NULL, w->cap ? 2 * w->cap : 1024, 0 };
+	struct wsum bigger = { NULL, w->cap ? 2 * w->cap : 1024, 0, "", 0 };
 
 	if (!(bigger.v = calloc(bigger.cap, sizeof *bigger.v)))
 		return -1;
@@ -103,6 +133,8 @@ static int wsum_grow(struct wsum *w)
 		bigger.n++;
 	}
 	free(w->v);
+	memcpy(bigger.date, w->date, sizeof bigger.date);
+	bigger.day = w->day;
 	*w = bigger;
 	return 0;
 }
@@ -179,14 +211,18 @@ int db_log_add(struct sd_db *db, db_log_next_fn next, void *arg, long long *adde
 {
 	sqlite3_stmt *st = NULL;
 	struct wsum w = { 0 };
+	struct checked seen = { "", "", "" };
 	struct db_log r;
 	long long n = 0;
 	int ret = -1, rc;
 
+	/* A page cache to hold what a large import writes until its commit, rather than spilling
+	 * pages to the write-ahead log as it goes (SQLite's default is 2 MB). */
+	sqlite3_exec(db->h, "PRAGMA cache_size = -65536", NULL, NULL, NULL);
 	if (dbi_prepare(db, LOG_INSERT, &st, e))
 		goto done;
 	while ((rc = next(arg, &r, e)) == 1) {
-		if (check_row(&r, e))
+		if (check_row(&r, &seen, e))
 			goto done;
 		sqlite3_bind_int64(st, 1, r.athlete_id);
 		sqlite3_bind_text(st, 2, r.date, -1, SQLITE_STATIC);
