@@ -225,7 +225,9 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	    db_athlete_refs(ctx->db, a.id, &nb, &nt, e) || db_log_count(ctx->db, a.id, &nl, e))
 		return -1;
 	/* The logged rows are named only when there are some: most athletes have none. */
-	snprintf(logs, sizeof logs, nl ? " and %lld logged row%s" : "", nl, nl == 1 ? "" : "s");
+	logs[0] = '\0';
+	if (nl)
+		snprintf(logs, sizeof logs, " and %lld logged row%s", nl, nl == 1 ? "" : "s");
 	if ((nb || nt || nl) && !cascade)
 		return sd_fail(e, "athlete '%s' has %d block%s%s %d test%s%s; not removed (use "
 			       "--cascade to remove them too)", a.name, nb, nb == 1 ? "" : "s",
