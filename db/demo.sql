@@ -8,7 +8,8 @@
 -- Load it into a scratch database after the three demo templates (tests/demo_db.sh does both):
 --   setdose --db DEMO.db program add profiles/demo-*.ini
 --   sqlite3 DEMO.db < db/demo.sql
--- Blocks and tests name their athlete and template, so ids need not be known.
+-- Blocks and tests name their athlete and template, so ids need not be known. tests/demo_db.sh
+-- then adds the athletes' invented training log (written by tests/demo_logs.awk).
 
 BEGIN;
 

@@ -8,3 +8,5 @@ echo "== demo database (invented gym, invented athletes) built into a scratch fi
 sh "$ROOT/tests/demo_db.sh" "$SD" "$ROOT/build/demo.db" || exit 1
 echo "== setdose --db build/demo.db response 'Maren Oakhollow' (invented athlete)"
 "$SD" --db "$ROOT/build/demo.db" response "Maren Oakhollow" || exit 1
+echo "== setdose --db build/demo.db response 'Caspian Hollowell' (invented athlete who trained far less than planned)"
+"$SD" --db "$ROOT/build/demo.db" response "Caspian Hollowell" || exit 1

@@ -48,6 +48,12 @@ static void test_rule(void **state)
 	assert_near(resp_change_var(0.03, 1, 1), 0.0018, 1e-15);
 	assert_near(resp_change_var(0.03, 3, 5), 0.0018 + 0.00065253990255 + 0.000499521706062, 1e-12);
 	assert_near(resp_change_var(0.03, 1, 8), 0.0018 + 0.000438347401638, 1e-12);
+	/* A test and a training estimate: 0.03^2 + 0.06^2 = 0.0045, plus the equations'
+	 * disagreement at 3 and 5 reps when the counts differ. */
+	assert_near(resp_change_var2(0.03, 0.06, 5, 5), 0.0045, 1e-15);
+	assert_near(resp_change_var2(0.03, 0.06, 3, 5), 0.0045 + 0.00065253990255 + 0.000499521706062,
+		    1e-12);
+	assert_near(resp_change_var2(0.03, 0.03, 3, 5), resp_change_var(0.03, 3, 5), 1e-15);
 }
 
 /* Two lifts of one athlete under the linear test profile (y = 0.02 + 0.01 x, V = diag(1e-4,

@@ -384,6 +384,188 @@ static void default_path(void **state)
 	assert_null(db_default_path(buf, sizeof buf));
 }
 
+/* Hands out rows from an array, for db_log_add. */
+struct rows {
+	const struct db_log *v;
+	int n, i;
+};
+
+static int next_row(void *arg, struct db_log *out, struct sd_err *e)
+{
+	struct rows *r = arg;
+	(void)e;
+	if (r->i == r->n)
+		return 0;
+	*out = r->v[r->i++];
+	return 1;
+}
+
+static int count_row(const struct db_log *r, const char *athlete, void *arg)
+{
+	(void)r;
+	(void)athlete;
+	(*(int *)arg)++;
+	return 0;
+}
+
+static int sum_row(const struct db_log_sum *s, void *arg)
+{
+	int *v = arg;
+	v[0] += s->within;
+	v[1] += s->above;
+	v[2] += s->unrecorded;
+	v[3]++;
+	return 0;
+}
+
+static int week_row(const struct db_log_week *w, void *arg)
+{
+	char *buf = arg;
+	size_t used = strlen(buf);
+	snprintf(buf + used, 512 - used, "%s %s %g %d %u; ", w->monday, w->exercise, w->rir,
+		 w->sets, w->days);
+	return 0;
+}
+
+static struct db_log log_row(long long athlete, const char *date, const char *ex, int sets,
+			     int reps, double rir, double load, const char *unit, int ordinal)
+{
+	struct db_log r;
+	memset(&r, 0, sizeof r);
+	r.athlete_id = athlete;
+	snprintf(r.date, sizeof r.date, "%s", date);
+	snprintf(r.exercise, sizeof r.exercise, "%s", ex);
+	r.sets = sets;
+	r.reps = reps;
+	r.rir = rir;
+	r.load = load;
+	snprintf(r.unit, sizeof r.unit, "%s", unit);
+	r.ordinal = ordinal;
+	snprintf(r.source, sizeof r.source, "test line %d", ordinal);
+	return r;
+}
+
+/* The log: identical rows meet their twin in the unique index (the ordinal tells apart
+ * identical sets logged twice on one day); a CHECK failure is an error, never skipped. */
+static void logs(void **state)
+{
+	struct sd_db *db = mem();
+	struct sd_err e = { 0 };
+	long long a = add_athlete(db, "Ada", 1), b = add_athlete(db, "Bo", 0), added = -1, n;
+	struct db_log v[4];
+	struct rows r;
+	int seen = 0, sums[4] = { 0 };
+	(void)state;
+
+	v[0] = log_row(a, "2026-12-31", "back squat", 3, 5, 2, 100, "kg", 1);
+	v[1] = log_row(a, "2026-12-31", "back squat", 3, 5, 2, 100, "kg", 2);
+	v[2] = log_row(a, "2027-01-04", "bench press", 1, 8, -1, 0, "", 1);
+	v[3] = log_row(b, "2027-01-04", "bench press", 2, 8, 6, 225, "lb", 1);
+	r = (struct rows){ v, 4, 0 };
+	assert_int_equal(db_begin(db, &e), 0);
+	assert_int_equal(db_log_add(db, next_row, &r, &added, &e), 0);
+	assert_int_equal(db_commit(db, &e), 0);
+	assert_int_equal(added, 4);
+	/* The same rows again: nothing new. */
+	r = (struct rows){ v, 4, 0 };
+	assert_int_equal(db_begin(db, &e), 0);
+	assert_int_equal(db_log_add(db, next_row, &r, &added, &e), 0);
+	assert_int_equal(db_commit(db, &e), 0);
+	assert_int_equal(added, 0);
+	assert_int_equal(db_log_count(db, 0, &n, &e), 0);
+	assert_int_equal(n, 4);
+	assert_int_equal(db_log_count(db, a, &n, &e), 0);
+	assert_int_equal(n, 3);
+	/* A third identical set that day is new. */
+	v[0].ordinal = 3;
+	r = (struct rows){ v, 1, 0 };
+	assert_int_equal(db_begin(db, &e), 0);
+	assert_int_equal(db_log_add(db, next_row, &r, &added, &e), 0);
+	assert_int_equal(db_commit(db, &e), 0);
+	assert_int_equal(added, 1);
+	/* A load with no unit breaks a CHECK: an error, not a skipped row. */
+	v[0] = log_row(a, "2027-01-05", "back squat", 3, 5, 2, 100, "", 1);
+	r = (struct rows){ v, 1, 0 };
+	assert_int_equal(db_begin(db, &e), 0);
+	assert_int_equal(db_log_add(db, next_row, &r, &added, &e), -1);
+	assert_non_null(strstr(e.msg, "cannot add log rows"));
+	db_rollback(db);
+
+	assert_int_equal(db_log_each(db, a, "2027-01-01", NULL, count_row, &seen, &e), 0);
+	assert_int_equal(seen, 1);
+	seen = 0;
+	assert_int_equal(db_log_each(db, 0, NULL, NULL, count_row, &seen, &e), 0);
+	assert_int_equal(seen, 5);
+	/* Sums per day and exercise: 9 sets at RIR 2 on one day, 1 without an effort. */
+	assert_int_equal(db_log_sums(db, a, NULL, NULL, 4, sum_row, sums, &e), 0);
+	assert_int_equal(sums[0], 9);
+	assert_int_equal(sums[1], 0);
+	assert_int_equal(sums[2], 1);
+	assert_int_equal(sums[3], 2);
+	memset(sums, 0, sizeof sums);
+	assert_int_equal(db_log_sums(db, b, NULL, NULL, 4, sum_row, sums, &e), 0);
+	assert_int_equal(sums[1], 2);   /* RIR 6 is above the limit */
+	/* The weekly sums grew with the new rows only: the three squat rows of Thursday
+	 * 2026-12-31 (day bit 3) are 9 sets in the week of Monday 2026-12-28. */
+	char weeks[512] = "";
+	assert_int_equal(db_log_weeks(db, a, NULL, NULL, week_row, weeks, &e), 0);
+	assert_string_equal(weeks, "2026-12-28 back squat 2 9 8; 2027-01-04 bench press -1 1 1; ");
+	weeks[0] = '\0';
+	assert_int_equal(db_log_weeks(db, a, "2027-01-01", NULL, week_row, weeks, &e), 0);
+	assert_string_equal(weeks, "2027-01-04 bench press -1 1 1; ");
+	/* The athlete cannot go while logged rows remain, unless asked. */
+	assert_int_equal(db_begin(db, &e), 0);
+	assert_int_equal(db_athlete_rm(db, b, 0, &e), -1);
+	assert_non_null(strstr(e.msg, "1 logged row"));
+	assert_int_equal(db_athlete_rm(db, b, 1, &e), 0);
+	assert_int_equal(db_commit(db, &e), 0);
+	assert_int_equal(db_log_count(db, 0, &n, &e), 0);
+	assert_int_equal(n, 4);
+	assert_int_equal(db_check(db, NULL, &e), 0);
+	db_close(db);
+}
+
+/* A version-1 database (before the log) is migrated to the latest, its rows kept. */
+static void migrates_version_1(void **state)
+{
+	char path[320], *sql;
+	struct sd_db *db = NULL;
+	struct sd_err e = { 0 };
+	struct db_athlete *list = NULL;
+	sqlite3 *h;
+	FILE *f;
+	long size;
+	int n = 0;
+	long long rows = -1;
+	(void)state;
+
+	assert_non_null(f = fopen("db/001_init.sql", "rb"));
+	fseek(f, 0, SEEK_END);
+	size = ftell(f);
+	rewind(f);
+	assert_non_null(sql = calloc(1, (size_t)size + 1));
+	assert_int_equal(fread(sql, 1, (size_t)size, f), (size_t)size);
+	fclose(f);
+	snprintf(path, sizeof path, "%s/v1.db", tmpdir);
+	assert_int_equal(sqlite3_open(path, &h), SQLITE_OK);
+	assert_int_equal(sqlite3_exec(h, sql, NULL, NULL, NULL), SQLITE_OK);
+	assert_int_equal(sqlite3_exec(h, "PRAGMA user_version = 1; PRAGMA application_id = "
+				      "1396993907; INSERT INTO athletes (name, status) VALUES "
+				      "('Old', 'trained')", NULL, NULL, NULL), SQLITE_OK);
+	sqlite3_close(h);
+	free(sql);
+	assert_int_equal(db_open(path, &db, &e), 0);
+	assert_int_equal(db_schema_version(db), db_schema_latest());
+	assert_int_equal(db_athlete_list(db, &list, &n, &e), 0);
+	assert_int_equal(n, 1);
+	assert_string_equal(list[0].name, "Old");
+	free(list);
+	assert_int_equal(db_log_count(db, 0, &rows, &e), 0);
+	assert_int_equal(rows, 0);
+	assert_int_equal(db_check(db, NULL, &e), 0);
+	db_close(db);
+}
+
 int main(void)
 {
 	const struct CMUnitTest tests[] = {
@@ -395,6 +577,8 @@ int main(void)
 		cmocka_unit_test(transactions),
 		cmocka_unit_test(files_backup_and_versions),
 		cmocka_unit_test(default_path),
+		cmocka_unit_test(logs),
+		cmocka_unit_test(migrates_version_1),
 	};
 	return cmocka_run_group_tests(tests, setup_dir, remove_dir);
 }

@@ -1,5 +1,8 @@
 #include "respdata.h"
 
+#include "../core/e1rm.h"
+#include "logdata.h"
+
 #include <math.h>
 #include <stdio.h>
 #include <stdlib.h>
@@ -41,8 +44,9 @@ static const struct db_test *nearest(const struct db_test *t, const long *days, 
 	return best;
 }
 
-/* Weekly fractional sets of the lift's prime movers, averaged over them; -1 without any. */
-static double lift_dose(const struct sd_ctx *ctx, const struct sd_audit *au, const char *lift)
+/* Weekly fractional sets of the lift's prime movers in dose (per muscle), averaged over them;
+ * -1 without any. */
+static double lift_dose(const struct sd_ctx *ctx, const double *dose, const char *lift)
 {
 	int k = lib_find(&ctx->lib, lift), nm = 0;
 	double sum = 0;
@@ -51,7 +55,7 @@ static double lift_dose(const struct sd_ctx *ctx, const struct sd_audit *au, con
 		return -1;
 	for (int m = 0; m < SD_NMUSCLES; m++)
 		if (ctx->lib.ex[k].direct & ((sd_mset)1 << m)) {
-			sum += au->row[m].dose.fractional;
+			sum += dose[m];
 			nm++;
 		}
 	return nm ? sum / nm : -1;
@@ -119,6 +123,90 @@ static void audits_free(struct audits *c)
 	c->x = NULL;
 }
 
+/* The lift's tests: rs->t[*lo..*hi), the list being ordered by lift, then date (an empty
+ * range when the lift has none). */
+static void lift_tests(const struct resp_data *rs, const char *lift, int *lo, int *hi)
+{
+	*lo = *hi = 0;
+	for (int i = 0; i < rs->nt; i++)
+		if (!strcmp(rs->t[i].lift, lift)) {
+			*lo = i;
+			for (*hi = i; *hi < rs->nt && !strcmp(rs->t[*hi].lift, lift); (*hi)++)
+				;
+			return;
+		}
+}
+
+/* The lift's weekly best e1RM (from logged sets in the window around `target`) whose set is
+ * nearest to target, as a test record; on a tie the one farther outside the block, as for
+ * tests. 0 when the window has none. */
+static int best_estimate(const struct sd_ctx *ctx, const struct tlog_trend *t, const char *lift,
+			 long target, int later, struct db_test *out, double *rtf)
+{
+	const struct tlog_best *best = NULL;
+	int k = lib_find(&ctx->lib, lift);
+	long bestd = 0;
+
+	for (int i = 0; i < t->n; i++) {
+		long d = labs(t->v[i].day - target);
+		if (t->v[i].ex != k)
+			continue;
+		if (!best || d < bestd || (d == bestd && (later ? t->v[i].day > best->day
+							     : t->v[i].day < best->day))) {
+			best = &t->v[i];
+			bestd = d;
+		}
+	}
+	if (!best)
+		return 0;
+	memset(out, 0, sizeof *out);
+	snprintf(out->lift, sizeof out->lift, "%s", lift);
+	date_format(best->day, out->date);
+	out->load_kg = best->load_kg;
+	out->reps = (int)lround(best->rtf);
+	out->e1rm_kg = best->e1rm_kg;
+	snprintf(out->formula, sizeof out->formula, "training");
+	*rtf = best->rtf;
+	return 1;
+}
+
+/* The weekly bests of every lift logged within `window` days of `day`. */
+static int window_trend(struct sd_ctx *ctx, long long athlete, long day_, int window,
+			struct tlog_trend *t, struct sd_err *e)
+{
+	char from[DATE_LEN], to[DATE_LEN];
+
+	date_format(day_ - window, from);
+	date_format(day_ + window, to);
+	return logd_trend(ctx, athlete, E1RM_DEFAULT, from, to, t, e);
+}
+
+/* The lifts a block can be judged by: every tested lift, and every lift logged near its start
+ * or its end. */
+static int lift_names(const struct sd_ctx *ctx, const struct resp_data *rs,
+		      const struct tlog_trend *t0, const struct tlog_trend *t1,
+		      char (**out)[DB_NAME_MAX], int *n, struct sd_err *e)
+{
+	int cap = rs->nt + t0->n + t1->n, k = 0;
+	char (*v)[DB_NAME_MAX] = malloc((size_t)(cap ? cap : 1) * sizeof *v);
+
+	if (!v)
+		return sd_fail(e, "out of memory");
+	for (int i = 0; i < cap; i++) {
+		const char *name = i < rs->nt ? rs->t[i].lift : i < rs->nt + t0->n ?
+			ctx->lib.ex[t0->v[i - rs->nt].ex].name :
+			ctx->lib.ex[t1->v[i - rs->nt - t0->n].ex].name;
+		int j;
+		for (j = 0; j < k && strcmp(v[j], name); j++)
+			;
+		if (j == k)
+			snprintf(v[k++], DB_NAME_MAX, "%s", name);
+	}
+	*out = v;
+	*n = k;
+	return 0;
+}
+
 static int add_row(struct resp_data *rs, const struct resp_row *r, struct sd_err *e)
 {
 	if (rs->n == rs->cap) {
@@ -140,40 +228,77 @@ static int block_rows(struct sd_ctx *ctx, struct audits *c, int window,
 {
 	struct sd_covars cov = { app_block_weeks(b), b->trained };
 	const struct sd_audit *au = audit_of(ctx, c, b, cov.weeks, e);
+	struct tlog_trend t0 = { 0 }, t1 = { 0 };
+	struct tlog_span span;
+	char (*lifts)[DB_NAME_MAX] = NULL;
+	double plan[SD_NMUSCLES], done[SD_NMUSCLES];
 	long s = day(b->start), f = day(b->end);
-	int before = rs->n;
+	int rc = -1, before = rs->n, nl = 0, logged = 0;
 
 	if (!au)
 		return -1;
-	const struct db_test *t = rs->t;
-	int nt = rs->nt;
-
-	for (int i = 0, end; i < nt; i = end) {
+	for (int m = 0; m < SD_NMUSCLES; m++)
+		plan[m] = au->row[m].dose.fractional;
+	/* An athlete with no log at all costs no further query. */
+	if (rs->logged) {
+		if (logd_block_done(ctx, b, done, &span, e) ||
+		    window_trend(ctx, b->athlete_id, s, window, &t0, e) ||
+		    window_trend(ctx, b->athlete_id, f, window, &t1, e))
+			goto done;
+		logged = span.rows > 0;
+	}
+	if (lift_names(ctx, rs, &t0, &t1, &lifts, &nl, e))
+		goto done;
+	for (int i = 0; i < nl; i++) {
+		int lo, hi;
+		const struct db_test *pre, *post;
 		struct resp_row r;
-		/* One row per lift: the list is ordered by lift, then date. */
-		for (end = i + 1; end < nt && !strcmp(t[end].lift, t[i].lift); end++)
-			;
+
+		lift_tests(rs, lifts[i], &lo, &hi);
+		pre = nearest(rs->t, rs->day, lo, hi, s, window, 0);
+		post = nearest(rs->t, rs->day, lo, hi, f, window, 1);
 		memset(&r, 0, sizeof r);
-		r.pre = nearest(t, rs->day, i, end, s, window, 0);
-		r.post = nearest(t, rs->day, i, end, f, window, 1);
-		if (!r.pre || !r.post || strcmp(r.pre->date, r.post->date) >= 0)
+		if (pre) {
+			r.pre = *pre;
+			r.pre_reps = pre->reps;
+		} else if (!(r.pre_est = best_estimate(ctx, &t0, lifts[i], s, 0, &r.pre,
+								    &r.pre_reps))) {
 			continue;
-		r.dose = lift_dose(ctx, au, t[i].lift);
+		}
+		if (post) {
+			r.post = *post;
+			r.post_reps = post->reps;
+		} else if (!(r.post_est = best_estimate(ctx, &t1, lifts[i], f, 1, &r.post,
+								     &r.post_reps))) {
+			continue;
+		}
+		if (strcmp(r.pre.date, r.post.date) >= 0)
+			continue;
+		r.planned = lift_dose(ctx, plan, lifts[i]);
+		r.dose_logged = logged;
+		r.dose = logged ? lift_dose(ctx, done, lifts[i]) : r.planned;
 		if (r.dose < 0)
 			continue;   /* a lift no longer in the library, or with no prime mover */
 		r.block = b->id;
 		r.weeks = cov.weeks;
-		snprintf(r.lift, sizeof r.lift, "%s", t[i].lift);
+		snprintf(r.lift, sizeof r.lift, "%s", lifts[i]);
 		curve_eval(&ctx->profile, &cov, r.dose, ro->level, &r.pt);
 		r.beyond = r.pt.beyond;
-		resp_obs_set(&ctx->profile, &cov, r.dose, log(r.post->e1rm_kg / r.pre->e1rm_kg),
-			     resp_change_var(ro->test_sd, r.pre->reps, r.post->reps), b->id, &r.ob);
+		resp_obs_set(&ctx->profile, &cov, r.dose, log(r.post.e1rm_kg / r.pre.e1rm_kg),
+			     resp_change_var2(r.pre_est ? ro->est_sd : ro->test_sd,
+					      r.post_est ? ro->est_sd : ro->test_sd, r.pre_reps,
+					      r.post_reps), b->id, &r.ob);
 		if (add_row(rs, &r, e))
-			return -1;
+			goto done;
 	}
 	if (rs->n > before)
 		rs->nblocks++;
-	return 0;
+	rc = 0;
+done:
+	free(lifts);
+	tlog_trend_free(&t0);
+	tlog_trend_free(&t1);
+	return rc;
 }
 
 
@@ -181,6 +306,9 @@ int respd_check_opts(const struct resp_opts *o, struct sd_err *e)
 {
 	if (!isfinite(o->test_sd) || o->test_sd < 0 || o->test_sd > 1)
 		return sd_usage(e, "bad test error %g: expected a log-scale SD from 0 to 1", o->test_sd);
+	if (!isfinite(o->est_sd) || o->est_sd < 0 || o->est_sd > 1)
+		return sd_usage(e, "bad estimate error %g: expected a log-scale SD from 0 to 1",
+				o->est_sd);
 	if (o->prior_sd != RESPD_PRIOR_PROFILE &&
 	    (!isfinite(o->prior_sd) || o->prior_sd <= 0 || o->prior_sd > 2))
 		return sd_usage(e, "bad prior SD %g: expected a log-scale SD above 0, at most 2",
@@ -196,14 +324,18 @@ static int athlete_rows(struct sd_ctx *ctx, struct audits *c, long long only_blo
 {
 	int found = 0;
 
+	long long nlog;
+
 	if (db_block_list(ctx->db, d->athlete.id, &d->b, &d->nb, e) ||
-	    db_test_list(ctx->db, d->athlete.id, NULL, &d->t, &d->nt, e))
+	    db_test_list(ctx->db, d->athlete.id, NULL, &d->t, &d->nt, e) ||
+	    db_log_count(ctx->db, d->athlete.id, &nlog, e))
 		return -1;
 	/* Each test's date parsed once, not once per block and lift. */
 	if (!(d->day = malloc((size_t)(d->nt ? d->nt : 1) * sizeof *d->day)))
 		return sd_fail(e, "out of memory");
 	for (int i = 0; i < d->nt; i++)
 		d->day[i] = day(d->t[i].date);
+	d->logged = nlog > 0;
 	for (int i = 0; i < d->nb; i++) {
 		const struct db_block *b = &d->b[i];
 		if (only_block && b->id == only_block) {

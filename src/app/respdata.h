@@ -1,6 +1,9 @@
 /* An athlete's responses: pairs each completed block with the tests of each lift nearest its
- * start and its end, predicts the change from the curve for the dose of the lift's prime
- * movers, and estimates the personal response (core/response.h has the model), with the
+ * start and its end (where a block has no test of a lift near its start or end, the best e1RM
+ * from the logged sets near it, flagged as estimated from training, with its own larger test
+ * error), predicts the change from the curve for the dose of the lift's prime movers (the
+ * logged average weekly dose when the block has logged sets, else the template's), and
+ * estimates the personal response (core/response.h has the model), with the
  * athlete and block variances estimated from every athlete's observations when the roster is
  * large enough. Shared by the `response` command and the full-screen interface, so both show
  * the same numbers.
@@ -23,13 +26,18 @@ struct resp_opts {
 	double prior_sd;             /* prior SD of the athlete's deviation, or RESPD_PRIOR_PROFILE */
 	double level;                /* interval level */
 	int priors_only;             /* 1: the stated priors even when the roster could estimate */
+	double est_sd;               /* SD of a 1RM estimated from training, log scale, 0..1 */
 };
 
 struct resp_row {
 	long long block;
 	char lift[DB_NAME_MAX];
-	const struct db_test *pre, *post;
+	struct db_test pre, post;    /* a training estimate has formula "training" */
+	int pre_est, post_est;       /* 1: estimated from logged sets, not tested */
+	double pre_reps, post_reps;  /* reps to failure behind each 1RM */
 	double dose, weeks;
+	int dose_logged;             /* dose is the logged average; else the template's */
+	double planned;              /* the template's dose for the lift */
 	struct sd_point pt;          /* the curve at the lift's dose for this block */
 	struct resp_obs ob;
 	struct resp_fit fit;
@@ -43,13 +51,14 @@ struct resp_data {
 	struct db_test *t;
 	long *day;                   /* nt day numbers of the tests' dates */
 	int nt;
+	int logged;                  /* the athlete has logged sets */
 	struct resp_row *v;          /* observations of every completed block */
 	int n, cap, nblocks;         /* nblocks: completed blocks with at least one observation */
 	struct resp_vars vars;       /* the variances used: roster estimates or priors */
 	struct resp_personal personal;
 };
 
-/* Checks options: finite, test_sd 0..1, prior_sd above 0 and at most 2 (or the profile's),
+/* Checks options: finite, test_sd and est_sd 0..1, prior_sd above 0 and at most 2 (or the profile's),
  * 0 < level < 1. */
 int respd_check_opts(const struct resp_opts *o, struct sd_err *e);
 /* Loads the athlete's blocks and tests and computes every observation and the personal

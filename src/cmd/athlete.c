@@ -32,7 +32,7 @@ static const struct sd_optdef edit_opts[] = {
 static const struct sd_optdef rm_opts[] = {
 	{ "yes", OPT_FLAG, 0, 0, AO(yes), NULL, NULL, "do not ask before removing" },
 	{ "cascade", OPT_FLAG, 0, 0, AO(cascade), NULL, NULL,
-	  "also remove the athlete's blocks and tests (else rm refuses)" },
+	  "also remove the athlete's blocks, tests and log (else rm refuses)" },
 };
 #undef AO
 
@@ -209,6 +209,8 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
 	struct athlete_opts o;
 	struct db_athlete a;
+	char logs[48];
+	long long nl;
 	int yes, cascade, nb, nt;
 
 	if (parse_opts("athlete rm", rm_opts, OPT_N(rm_opts), argc, argv, &o, e))
@@ -216,17 +218,21 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	yes = o.yes;
 	cascade = o.cascade;
 	if (db_begin(ctx->db, e) || app_athlete_get(ctx->db, argv[1], &a, e) ||
-	    db_athlete_refs(ctx->db, a.id, &nb, &nt, e))
+	    db_athlete_refs(ctx->db, a.id, &nb, &nt, e) || db_log_count(ctx->db, a.id, &nl, e))
 		return -1;
-	if ((nb || nt) && !cascade)
-		return sd_fail(e, "athlete '%s' has %d block%s and %d test%s; not removed (use "
-			       "--cascade to remove them too)", a.name, nb, nb == 1 ? "" : "s", nt,
-			       nt == 1 ? "" : "s");
+	/* The logged rows are named only when there are some: most athletes have none. */
+	logs[0] = '\0';
+	if (nl)
+		snprintf(logs, sizeof logs, " and %lld logged row%s", nl, nl == 1 ? "" : "s");
+	if ((nb || nt || nl) && !cascade)
+		return sd_fail(e, "athlete '%s' has %d block%s%s %d test%s%s; not removed (use "
+			       "--cascade to remove them too)", a.name, nb, nb == 1 ? "" : "s",
+			       nl ? "," : " and", nt, nt == 1 ? "" : "s", logs);
 	if (!yes) {
 		char q[256];
 		int ok;
-		snprintf(q, sizeof q, "remove athlete '%s' with %d block%s and %d test%s?", a.name,
-			 nb, nb == 1 ? "" : "s", nt, nt == 1 ? "" : "s");
+		snprintf(q, sizeof q, "remove athlete '%s' with %d block%s%s %d test%s%s?", a.name,
+			 nb, nb == 1 ? "" : "s", nl ? "," : " and", nt, nt == 1 ? "" : "s", logs);
 		ok = dbu_confirm(q, e);
 		if (ok < 0)
 			return -1;
@@ -235,8 +241,9 @@ static int do_rm(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 	}
 	if (db_athlete_rm(ctx->db, a.id, cascade, e) || db_commit(ctx->db, e))
 		return -1;
-	fprintf(ctx->out, "removed athlete '%s' (%d block%s, %d test%s)\n", a.name, nb,
+	fprintf(ctx->out, "removed athlete '%s' (%d block%s, %d test%s", a.name, nb,
 		nb == 1 ? "" : "s", nt, nt == 1 ? "" : "s");
+	fprintf(ctx->out, nl ? ", %lld logged row%s)\n" : ")\n", nl, nl == 1 ? "" : "s");
 	return 0;
 }
 

@@ -76,7 +76,7 @@ static int exec_audit(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 {
 	struct audit_args a = { .cap = SD_SESSION_CAP };
 	struct sd_table *csv = NULL;
-	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7 };
+	struct sd_sumout so = { ctx->out, ctx->opt.format == SD_FMT_CSV, 0, 0, 7, 0, NULL };
 	struct pathlist list = { NULL, 0, NULL };
 	char **files;
 	int rc = 0, nfiles;

@@ -1,11 +1,14 @@
 /* audit --all: the audits of all open blocks. Blocks share few templates, statuses and
- * lengths, so each (template, status, weeks) is parsed and audited once and reused. */
+ * lengths, so each (template, status, weeks) is parsed and audited once and reused. Next to
+ * each block's planned dose, what its athlete logged in it so far (the logged average weekly
+ * dose, cmd/logdata.h); a database without a log skips that query. */
 #include <stdlib.h>
 #include <string.h>
 
 #include "../io/audit_out.h"
 #include "audit_all.h"
 #include "dbutil.h"
+#include "../app/logdata.h"
 
 #define CACHE_MAX 256   /* distinct (template, status, weeks) audits kept at once */
 #define OVERDUE_SHOWN 20 /* overdue blocks named under the table; the rest are counted */
@@ -29,6 +32,8 @@ struct walk {
 	char today[DATE_LEN];
 	long long noverdue;
 	char overdue[OVERDUE_SHOWN][DB_NAME_MAX + 160];  /* notes under the table */
+	int any_logs;                /* the database holds logged sets */
+	struct sd_ctx lctx;          /* the run's context on this walk's database, for the log */
 	struct sd_err *e;
 };
 
@@ -70,12 +75,33 @@ static struct entry *lookup(struct walk *w, const struct db_block *b)
 	return x;
 }
 
+/* The block's logged average dose so far. */
+static int block_done(struct walk *w, const struct db_block *b, struct aout_done *d)
+{
+	struct tlog_span span;
+
+	memset(d, 0, sizeof *d);
+	if (!w->any_logs)
+		return 0;
+	if (logd_block_done(&w->lctx, b, d->dose, &span, w->e))
+		return -1;
+	d->logged = span.rows > 0;
+	if (span.to >= span.from) {
+		date_format(span.from, d->from);
+		date_format(span.to, d->to);
+	}
+	d->weeks = tlog_span_weeks(&span);
+	d->days = span.days;
+	return 0;
+}
+
 static int one_block(const struct db_block *b, void *arg)
 {
 	struct walk *w = arg;
 	struct entry *x = lookup(w, b);
+	struct aout_done done;
 
-	if (!x)
+	if (!x || block_done(w, b, &done))
 		return -1;
 	struct sd_audit_info in = { .label = x->name, .prog = &x->prog, .prof = &w->ctx->profile,
 				    .audit = &x->au, .athlete = b->athlete,
@@ -85,12 +111,14 @@ static int one_block(const struct db_block *b, void *arg)
 			 "block %lld of '%s' is open %d days past its planned end; end it with "
 			 "'setdose block end %lld'", b->id, b->athlete, in.overdue_days, b->id);
 	if (w->ctx->opt.format == SD_FMT_JSON) {
-		if (aout_json_item(w->ctx->out, &in, w->first))
+		if (aout_json_item_done(w->ctx->out, &in, &done, w->first))
 			return sd_fail(w->e, "out of memory");
 	} else {
 		if (!x->rows.text && aout_sum_format(&w->so, &in, &x->rows))
 			return sd_fail(w->e, "out of memory");
+		w->so.done = &done;
 		aout_sum_print(&w->so, &in, &x->rows);
+		w->so.done = NULL;
 	}
 	w->first = 0;
 	return 0;
@@ -101,7 +129,7 @@ int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
 	struct walk w;
 	struct sd_db *own = NULL;
 	char path[4096];
-	long long nopen;
+	long long nopen, nlogs;
 	int wa, wp, rc = -1;
 
 	memset(&w, 0, sizeof w);
@@ -121,10 +149,13 @@ int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
 		sd_fail(e, "out of memory");
 		goto done;
 	}
-	if (db_block_open_widths(w.db, &wa, &wp, &nopen, e))
+	if (db_block_open_widths(w.db, &wa, &wp, &nopen, e) || db_log_count(w.db, 0, &nlogs, e))
 		goto done;
+	w.any_logs = nlogs > 0;
+	w.lctx = *ctx;
+	w.lctx.db = w.db;
 	w.so = (struct sd_sumout){ ctx->out, ctx->opt.format == SD_FMT_CSV, 1,
-				   wa > 7 ? wa : 7, wp > 7 ? wp : 7 };
+				   wa > 7 ? wa : 7, wp > 7 ? wp : 7, 1, NULL };
 	if (ctx->opt.format == SD_FMT_JSON)
 		aout_json_begin(ctx->out);
 	else if (nopen)
@@ -136,8 +167,10 @@ int cmd_audit_all(struct sd_ctx *ctx, double session_cap, struct sd_err *e)
 	if (ctx->opt.format == SD_FMT_JSON)
 		aout_json_end(ctx->out);
 	else if (nopen && ctx->opt.format == SD_FMT_TABLE) {
+		fprintf(ctx->out, "\ndone: the weekly fractional sets logged in the block so far (its "
+			"start to today), per week; -: nothing logged\n");
 		for (long long i = 0; i < w.noverdue && i < OVERDUE_SHOWN; i++)
-			fprintf(ctx->out, "%snote: %s\n", i ? "" : "\n", w.overdue[i]);
+			fprintf(ctx->out, "note: %s\n", w.overdue[i]);
 		if (w.noverdue > OVERDUE_SHOWN)
 			fprintf(ctx->out, "note: %lld more open blocks past their planned end ('setdose "
 				"block list')\n", w.noverdue - OVERDUE_SHOWN);

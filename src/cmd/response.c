@@ -8,7 +8,9 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "../core/e1rm.h"
 #include "../core/response.h"
+#include "../core/tlog.h"
 #include "../core/units.h"
 #include "../io/audit_out.h"
 #include "../io/recout.h"
@@ -39,6 +41,9 @@ static const struct sd_optdef opts[] = {
 	  "1RM test-retest error per test, log scale (default 0.03)" },
 	{ "window", OPT_INT, 0, 365, RA(window), NULL, "DAYS",
 	  "how near a test must be to a block's start or end (default 14)" },
+	{ "estimate-error", OPT_NUM, 0, 1, RA(ro.est_sd), NULL, "SD",
+	  "test error of a 1RM estimated from logged sets, log scale\n"
+	  "(default: the model's RESP_ESTIMATE_SD, larger than a test's)" },
 	{ "wide", OPT_FLAG, 0, 0, RA(wide), NULL, NULL,
 	  "every column: the tests (dates, e1RM, reps), lnRR, weeks and\n"
 	  "the percentile (the default table fits 80 columns)" },
@@ -55,6 +60,7 @@ static int parse(struct sd_ctx *ctx, int argc, char **argv, struct rargs *ra, st
 	ra->ro.level = ctx->opt.level;
 	ra->ro.priors_only = 0;
 	ra->wide = 0;
+	ra->ro.est_sd = RESP_ESTIMATE_SD;
 	if ((argc = opt_parse("response", opts, OPT_N(opts), ra, argc, argv, e)) < 0)
 		return -1;
 	if (argc != 2)
@@ -71,12 +77,12 @@ static void set_row(struct sd_rec *r, const struct resp_row *w, int lb, int prec
 
 	rec_set(r, c++, "%lld", w->block);
 	rec_set(r, c++, "%s", w->lift);
-	rec_set(r, c++, "%s", w->pre->date);
-	rec_set(r, c++, "%s", w->post->date);
-	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->pre->e1rm_kg, lb));
-	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->post->e1rm_kg, lb));
-	rec_set(r, c++, "%d", w->pre->reps);
-	rec_set(r, c++, "%d", w->post->reps);
+	rec_set(r, c++, "%s", w->pre.date);
+	rec_set(r, c++, "%s", w->post.date);
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->pre.e1rm_kg, lb));
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", units_show(w->post.e1rm_kg, lb));
+	rec_set(r, c++, "%g", w->pre_reps);
+	rec_set(r, c++, "%g", w->post_reps);
 	rec_set(r, c++, pct, curve_pct(w->ob.obs));
 	rec_set(r, c++, precise ? "%.6f" : "%.4f", w->ob.obs);
 	rec_set(r, c++, precise ? "%.3f" : "%.1f", w->dose);
@@ -86,15 +92,24 @@ static void set_row(struct sd_rec *r, const struct resp_row *w, int lb, int prec
 	rec_set(r, c++, pct, curve_pct(w->fit.hi));
 	rec_set(r, c++, precise ? "%.3f" : "%.0f", w->fit.pctile);
 	rec_set(r, c++, "%s", curve_beyond_names(w->beyond, beyond, sizeof beyond));
+	/* Where the dose and each 1RM came from: new columns go last, so the older ones keep
+	 * their places for scripts. */
+	rec_set(r, c++, "%s", w->dose_logged ? "logged" : "planned");
+	rec_set(r, c++, precise ? "%.3f" : "%.1f", w->planned);
+	rec_set(r, c++, "%s", w->pre_est ? "training" : "test");
+	rec_set(r, c++, "%s", w->post_est ? "training" : "test");
 }
 
 /* The narrow table keeps what a coach reads first: the lift, its dose, the observed change
  * against the prediction's interval, and the evidence flags; '~' columns (the tests
- * themselves, lnRR, weeks, percentile) are --wide, CSV and JSON only. */
-#define NCOLS 17
+ * themselves, lnRR, weeks, percentile, the evidence flags, where the dose and each 1RM come
+ * from, the planned dose) are --wide, CSV and JSON only; lines under the narrow table name the
+ * logged doses and the values beyond the evidence. */
+#define NCOLS 21
 static const char *const heads[NCOLS] = { "block", "<lift", "~<pre", "~<post", "~e1rm_pre",
 	"~e1rm_post", "~reps_pre", "~reps_post", "change%", "~lnRR", "dose", "~weeks",
-	"predicted%", "obs_lo%", "obs_hi%", "~percentile", "<beyond" };
+	"predicted%", "obs_lo%", "obs_hi%", "~percentile", "~<beyond", "~<dose_from", "~planned",
+	"~<pre_from", "~<post_from" };
 
 static void print_vars(FILE *f, const struct sd_profile *p, const struct resp_data *rs,
 		       int from_profile)
@@ -119,6 +134,43 @@ static void print_vars(FILE *f, const struct sd_profile *p, const struct resp_da
 	}
 }
 
+/* Which blocks' doses come from the log (the narrow table has no dose_from column). */
+static void logged_line(FILE *f, const struct resp_data *rs, long long only)
+{
+	char list[400] = "";
+	long long last = 0;
+	int n = 0, est = 0;
+
+	for (int i = 0; i < rs->n; i++) {
+		const struct resp_row *w = &rs->v[i];
+		if (only && w->block != only)
+			continue;
+		est += w->pre_est + w->post_est;
+		if (!w->dose_logged || w->block == last)
+			continue;
+		last = w->block;
+		if (strlen(list) + 24 < sizeof list)
+			snprintf(list + strlen(list), sizeof list - strlen(list), "%s%lld", n++ ? ", " : "",
+				 w->block);
+	}
+	if (n)
+		wrap_printf(f, 2, "dose from the log (the logged average) in block%s %s; planned in "
+			    "the others", n == 1 ? "" : "s", list);
+	else
+		wrap_printf(f, 2, "dose: planned (no block here has logged sets)");
+	if (est)
+		wrap_printf(f, 2, "%d 1RM%s estimated from logged sets (pre_from/post_from in --wide)",
+			    est, est == 1 ? "" : "s");
+	for (int i = 0; i < rs->n; i++) {
+		const struct resp_row *w = &rs->v[i];
+		char names[32];
+		if ((only && w->block != only) || !w->beyond)
+			continue;
+		wrap_printf(f, 2, "beyond the evidence: block %lld, %s (%s; held at the edge)", w->block,
+			    w->lift, curve_beyond_names(w->beyond, names, sizeof names));
+	}
+}
+
 static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const struct rargs *ra,
 			const struct resp_data *rs, struct sd_rec *r, const struct resp_personal *pr,
 			int lb)
@@ -131,23 +183,30 @@ static void print_table(struct sd_ctx *ctx, const struct db_athlete *a, const st
 	wrap_printf(f, 2, "test error %.3f per 1RM test (log scale, --test-error), more when pre and "
 		    "post come from different rep counts; tests within %lld days of a block's start "
 		    "and end (--window)", ra->ro.test_sd, ra->window);
+	wrap_printf(f, 2, "without a test there, the weekly best e1RM from logged sets nearest to it "
+		    "(pre_from/post_from training: reps + RIR as reps to failure, at most %d; %s), "
+		    "test error %.3f (--estimate-error)", TLOG_E1RM_MAX_RTF,
+		    e1rm_source(E1RM_DEFAULT), ra->ro.est_sd);
 	print_vars(f, &ctx->profile, rs, ra->ro.prior_sd == RESPD_PRIOR_PROFILE);
 	fputc('\n', f);
 	rec_wide(r, ra->wide);
-	if (rec_rows(r))
+	if (rec_rows(r)) {
 		rec_print(r, f);
-	else
+		if (!ra->wide)
+			logged_line(f, rs, ra->block);
+	} else
 		wrap_printf(f, 2, "no completed block%s with a test of the same lift near its start "
 			    "and its end", ra->block ? " (of those asked)" : "");
 	fputc('\n', f);
-	wrap_printf(f, 0, "dose: weekly fractional sets of the lift's prime movers; predicted: the "
-		    "curve for that dose, the athlete's status and the block's length; "
-		    "obs_lo..obs_hi: the %d%% interval where the change was expected (the curve's "
-		    "error, the athlete's and the block's deviations, test error); %sbeyond: values "
-		    "outside the profile's evidence (held at its edge).%s", lvl,
-		    ra->wide ? "percentile: where it fell; " : "", ra->wide ? "" : " --wide adds "
-		    "the tests (dates, e1RM, reps), lnRR, weeks and the percentile where the change "
-		    "fell.");
+	wrap_printf(f, 0, "dose: weekly fractional sets of the lift's prime movers: the logged "
+		    "average over the block when it has logged sets (dose_from logged), else the "
+		    "template's (planned); predicted: the curve for that dose, the athlete's status "
+		    "and the block's length; obs_lo..obs_hi: the %d%% interval where the change was "
+		    "expected (the curve's error, the athlete's and the block's deviations, test "
+		    "error); %sbeyond: values outside the profile's evidence (held at its edge).%s",
+		    lvl, ra->wide ? "percentile: where it fell; " : "", ra->wide ? "" : " --wide "
+		    "adds the tests (dates, e1RM, reps, where each came from), lnRR, weeks, the "
+		    "planned dose and the percentile where the change fell.");
 	fputc('\n', f);
 	wrap_printf(f, 2, "personal response: %+.1f%% (lnRR %+.4f), %d%% interval %+.1f%% to %+.1f%%",
 		    curve_pct(pr->mean), pr->mean, lvl, curve_pct(pr->lo), curve_pct(pr->hi));
@@ -166,8 +225,8 @@ static int print_json(struct sd_ctx *ctx, const struct db_athlete *a, const stru
 		      const struct resp_data *rs, const struct sd_rec *r, const struct resp_personal *pr,
 		      struct sd_err *e)
 {
-	struct resp_json in = { a->name, a->trained, &ctx->profile, ra->ro.test_sd, ra->ro.level,
-				ra->window, &rs->vars, pr, rs->nblocks };
+	struct resp_json in = { a->name, a->trained, &ctx->profile, ra->ro.test_sd, ra->ro.est_sd,
+				ra->ro.level, ra->window, &rs->vars, pr, rs->nblocks };
 
 	return resp_out_json(ctx->out, &in, r) ? sd_fail(e, "out of memory") : 0;
 }
@@ -180,12 +239,13 @@ static int print_csv(struct sd_ctx *ctx, const struct rargs *ra, const struct re
 	rec_print(r, ctx->out);
 	/* The personal estimate as a second table after a blank line. */
 	fprintf(ctx->out, "\nobservations,blocks,lnrr,sd,low,high,pct,pct_low,pct_high,unshrunk_lnrr,"
-		"unshrunk_se,data_weight,variances,var_athlete,var_block,test_error,level\n");
-	fprintf(ctx->out, "%d,%d,%.6f,%.6f,%.6f,%.6f,%.3f,%.3f,%.3f,%.6f,%.6f,%.4f,%s,%.8f,%.8f,%g,%g\n",
+		"unshrunk_se,data_weight,variances,var_athlete,var_block,test_error,level,"
+		"estimate_error\n");
+	fprintf(ctx->out, "%d,%d,%.6f,%.6f,%.6f,%.6f,%.3f,%.3f,%.3f,%.6f,%.6f,%.4f,%s,%.8f,%.8f,%g,%g,%g\n",
 		pr->n, rs->nblocks, pr->mean, pr->sd, pr->lo, pr->hi, curve_pct(pr->mean),
 		curve_pct(pr->lo), curve_pct(pr->hi), pr->raw, pr->raw_se, pr->weight,
 		v->estimated ? "roster-reml" : "priors", v->athlete, v->block, ra->ro.test_sd,
-		ra->ro.level);
+		ra->ro.level, ra->ro.est_sd);
 	return 0;
 }
 
@@ -233,7 +293,8 @@ const struct sd_cmd cmd_response = {
 	.name = "response",
 	.summary = "did the athlete respond as predicted? observed vs predicted gains per block",
 	.usage = "response ATHLETE [--block ID] [--priors] [--prior-sd SD]\n"
-		 "                 [--test-error SD] [--window DAYS] [--wide]\n"
+		 "                 [--test-error SD] [--estimate-error SD] [--window DAYS]\n"
+		 "                 [--wide]\n"
 		 "  for each completed block and tested lift with a test near the block's start\n"
 		 "  and one near its end: observed change, the curve's prediction for the dose of\n"
 		 "  the lift's prime movers, and the observation's percentile; then the athlete's\n"
@@ -241,7 +302,9 @@ const struct sd_cmd cmd_response = {
 		 "  hierarchical model (athlete, block, test error; the curve's error shared by\n"
 		 "  all) whose athlete and block variances are estimated by REML from every\n"
 		 "  athlete's observations once at least 10 athletes have them and 5 have two or\n"
-		 "  more blocks, else the stated priors (the output says which)",
+		 "  more blocks, else the stated priors (the output says which); the dose is the\n"
+		 "  logged average when the block has logged sets, and a lift without a test near\n"
+		 "  a block's start or end may be judged by its weekly best e1RM from logged sets",
 	.flags = CMD_DB | CMD_LIBRARY | CMD_PROFILE,
 	.exec = exec_response,
 	.opts = opts,

@@ -6,7 +6,7 @@
 extern const struct sd_cmd cmd_audit, cmd_curve, cmd_returns, cmd_exercises, cmd_profile,
 	cmd_chart, cmd_report, cmd_help;
 extern const struct sd_cmd cmd_athlete, cmd_program, cmd_block, cmd_test, cmd_e1rm, cmd_response,
-	cmd_db;
+	cmd_db, cmd_log;
 extern const struct sd_cmd cmd_effects, cmd_fit, cmd_slopes;
 extern const struct sd_cmd cmd_browse, cmd_complete;
 extern const struct sd_cmd cmd_compare, cmd_allot;
@@ -26,6 +26,7 @@ const struct sd_cmd *const sd_commands[] = {
 	&cmd_block,
 	&cmd_test,
 	&cmd_e1rm,
+	&cmd_log,
 	&cmd_response,
 	&cmd_db,
 	&cmd_effects,

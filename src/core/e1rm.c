@@ -66,10 +66,8 @@ int e1rm_find(const char *name)
 	return -1;
 }
 
-double e1rm_raw(int f, double w, int reps)
+double e1rm_raw(int f, double w, double r)
 {
-	double r = reps;
-
 	switch (f) {
 	case E1RM_EPLEY:
 		return w * (1.0 + r / 30.0);

@@ -32,8 +32,9 @@ const char *e1rm_source(int f);
 const char *e1rm_equation(int f);
 /* Formula by name, ignoring case and an apostrophe ("O'Conner"); -1 if unknown. */
 int e1rm_find(const char *name);
-/* The bare equation at reps (no checks, no 1-rep rule). */
-double e1rm_raw(int f, double load, int reps);
+/* The bare equation at reps (no checks, no 1-rep rule). Reps may be fractional: a logged set's
+ * reps plus a half-step RIR (core/tlog.h). */
+double e1rm_raw(int f, double load, double reps);
 /* The estimate with this tool's rules: the load itself at 1 rep, refusal of a non-positive
  * load or reps outside 1..E1RM_MAX_REPS; *warn (may be NULL) is set to 1 above
  * E1RM_WARN_REPS, else 0. */

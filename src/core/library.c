@@ -304,6 +304,43 @@ int lib_match(const struct sd_library *lib, const char *name, struct sd_match *m
 	return m->kind;
 }
 
+/* "'a', 'b' or 'c'" of the exercises idx[0..n). */
+static void name_list(const struct sd_library *lib, const int *idx, int n, char *buf, size_t size)
+{
+	size_t used = 0;
+
+	buf[0] = '\0';
+	for (int i = 0; i < n && used < size; i++)
+		used += (size_t)snprintf(buf + used, size - used, "%s'%s'",
+					 i == 0 ? "" : (i == n - 1 ? " or " : ", "), lib->ex[idx[i]].name);
+}
+
+int lib_resolve(const struct sd_library *lib, const char *name, int *variant, struct sd_err *e)
+{
+	struct sd_match m;
+	char list[400];
+	int near[3], n;
+
+	*variant = 0;
+	if (strlen(name) >= SD_NAME_MAX)
+		return sd_fail(e, "exercise name longer than %d bytes", SD_NAME_MAX - 1);
+	switch (lib_match(lib, name, &m)) {
+	case SD_MATCH_EXACT:
+		return m.ex;
+	case SD_MATCH_VARIANT:
+		*variant = 1;
+		return m.ex;
+	case SD_MATCH_AMBIGUOUS:
+		name_list(lib, m.choice, m.nchoices, list, sizeof list);
+		return sd_fail(e, "'%s' names more than one exercise; write %s", name, list);
+	default:
+		n = lib_suggest(lib, name, near, 3);
+		name_list(lib, near, n, list, sizeof list);
+		return sd_fail(e, "unknown exercise '%s'%s%s%s", name, n ? " (did you mean " : "", list,
+			       n ? "?)" : "");
+	}
+}
+
 void lib_free(struct sd_library *lib)
 {
 	for (int i = 0; i < lib->n; i++)

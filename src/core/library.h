@@ -86,6 +86,11 @@ int lib_index(struct sd_library *lib, struct sd_err *e);
 int lib_find(const struct sd_library *lib, const char *name);
 /* lib_find, plus parenthesised variants and ambiguous names; returns m->kind. */
 int lib_match(const struct sd_library *lib, const char *name, struct sd_match *m);
+/* The exercise a name written in a file stands for, as programs and logs read it: the index
+ * (an exact name or alias, or a variant read as its base lift, *variant then 1), or -1 with
+ * e reading "unknown exercise 'NAME' (did you mean 'A', 'B' or 'C'?)", "'NAME' names more
+ * than one exercise; write 'A' or 'B'" or "exercise name longer than N bytes". */
+int lib_resolve(const struct sd_library *lib, const char *name, int *variant, struct sd_err *e);
 /* Writes up to k indices of the closest exercises (shared words first, then edit distance)
  * into out; returns how many. */
 int lib_suggest(const struct sd_library *lib, const char *name, int *out, int k);

@@ -508,6 +508,36 @@ int prog_parse_effort(const char *text, enum sd_effort scale, struct sd_entry *e
 	return rc;
 }
 
+int prog_parse_effort_text(const char *text, struct sd_entry *en, struct sd_err *e)
+{
+	char *buf = fold(text);
+	int rc = -1;
+
+	if (!buf)
+		return sd_fail(e, "out of memory");
+	struct cur c = { buf, text };
+	en->effort = SD_EFFORT_NONE;
+	blanks(&c);
+	if (*c.s == '@') {
+		c.s++;
+		rc = at_sign(&c, 0, NULL, en, e);
+	} else if (word(&c, "rir")) {
+		rc = effort_value(&c, SD_EFFORT_RIR, 0, en, e);
+	} else if (word(&c, "rpe")) {
+		rc = effort_value(&c, SD_EFFORT_RPE, 0, en, e);
+	} else {
+		sd_fail(e, "bad effort '%s' (expected RIR 2, RPE 8 or @8)", text);
+	}
+	if (rc == 0) {
+		blanks(&c);
+		/* "@75%" is a load, not an effort. */
+		if (*c.s || en->effort == SD_EFFORT_NONE)
+			rc = sd_fail(e, "bad effort '%s' (expected RIR 2, RPE 8 or @8)", text);
+	}
+	free(buf);
+	return rc;
+}
+
 /* Appends to buf; keeps len at the text's length even when it no longer fits. */
 static int put(char *buf, int size, int len, const char *fmt, ...) __attribute__((format(printf, 4, 5)));
 

@@ -94,6 +94,9 @@ int prog_parse_reps(const char *text, struct sd_entry *en, struct sd_err *e);
 /* Parses an effort field alone on a known scale (a CSV rir or rpe column): "2", "1-2", "8.5",
  * "8,5". */
 int prog_parse_effort(const char *text, enum sd_effort scale, struct sd_entry *en, struct sd_err *e);
+/* Parses an effort written as in programs, scale included: "RIR 2", "RPE 8", "@8" (RPE),
+ * "@2 RIR", "RPE 7-8", "@RIR 1". */
+int prog_parse_effort_text(const char *text, struct sd_entry *en, struct sd_err *e);
 /* Writes a group back in the notation prog_parse_sets reads ("3x8-12 @8"). */
 void prog_format_group(const struct sd_entry *en, char *buf, int size);
 

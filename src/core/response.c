@@ -13,7 +13,7 @@
 #include "metareg.h"
 #include "stats.h"
 
-double resp_equation_var(int reps)
+double resp_equation_var(double reps)
 {
 	double v[E1RM_NFORMULAS], mean = 0, ss = 0;
 
@@ -31,7 +31,12 @@ double resp_equation_var(int reps)
 
 double resp_change_var(double test_sd, int reps_pre, int reps_post)
 {
-	double v = 2.0 * test_sd * test_sd;
+	return resp_change_var2(test_sd, test_sd, reps_pre, reps_post);
+}
+
+double resp_change_var2(double sd_pre, double sd_post, double reps_pre, double reps_post)
+{
+	double v = sd_pre * sd_pre + sd_post * sd_post;
 	if (reps_pre != reps_post)
 		v += resp_equation_var(reps_pre) + resp_equation_var(reps_post);
 	return v;

@@ -34,6 +34,10 @@
 /* The 1RM test-retest error per test on the log scale; about 3 % is from memory (typical
  * values reported for trained lifters are 2-4 %), settable (--test-error). */
 #define RESP_TEST_SD 0.03
+/* The error of a 1RM estimated from training (a logged set's reps plus RIR as reps to failure,
+ * core/tlog.h) on the same scale: larger than a test's, as the RIR it rests on is the lifter's
+ * own guess; twice the test error (common practice, no source), settable (--estimate-error). */
+#define RESP_ESTIMATE_SD 0.06
 /* The roster sizes that switch the variances from priors to REML estimates: ten clusters is
  * about the fewest from which a variance is estimated with any precision, and athlete and
  * block variance are only told apart by athletes with several blocks (common practice, no
@@ -43,11 +47,14 @@
 
 /* Variance over the 1RM equations (e1rm.h) of ln(estimate / load) at reps: how much the
  * equations disagree about the conversion (0 at 1 rep). */
-double resp_equation_var(int reps);
+double resp_equation_var(double reps);
 /* Test-error variance of a change: 2 t^2 when pre and post come from the same rep count (the
  * conversion's error is then common to both and cancels in the ratio); when the counts
  * differ it does not cancel, and each test adds resp_equation_var of its reps. */
 double resp_change_var(double test_sd, int reps_pre, int reps_post);
+/* The same when pre and post have errors of their own (a test and a training estimate):
+ * sd_pre^2 + sd_post^2, plus the equations' disagreement when the reps to failure differ. */
+double resp_change_var2(double sd_pre, double sd_post, double reps_pre, double reps_post);
 
 struct resp_obs {
 	long long block;             /* lifts of one block share its deviation */

@@ -50,9 +50,17 @@ static int source_order(const void *pa, const void *pb)
 	return a->ex - b->ex;
 }
 
+void vol_weights(const struct sd_exercise *x, double w_direct, double w_indirect,
+		 double w[SD_NMUSCLES])
+{
+	for (int m = 0; m < SD_NMUSCLES; m++)
+		w[m] = x->direct >> m & 1 ? w_direct : x->indirect >> m & 1 ? w_indirect : 0;
+}
+
 int vol_count(const struct sd_program *p, const struct sd_library *lib, double w_direct,
 	      double w_indirect, int max_rir, struct sd_volume *v, struct sd_err *e)
 {
+	double w[SD_NMUSCLES];
 	int cap = 0;
 
 	memset(v, 0, sizeof *v);
@@ -79,22 +87,19 @@ int vol_count(const struct sd_program *p, const struct sd_library *lib, double w
 		v->hard_sets += en->sets;
 		if (en->rir < 0 && !x->ungraded)
 			v->unknown_rir += en->sets;
+		vol_weights(x, w_direct, w_indirect, w);
 		for (int m = 0; m < SD_NMUSCLES; m++) {
-			double w = 0, dir = 0, ind = 0;
-			/* A muscle listed both ways counts once, as direct. */
-			if (x->direct >> m & 1) {
-				dir = en->sets;
-				w = w_direct;
-			} else if (x->indirect >> m & 1) {
-				ind = en->sets;
-				w = w_indirect;
-			} else {
+			double dir = 0, ind = 0;
+			if (!((x->direct | x->indirect) >> m & 1))
 				continue;
-			}
+			if (x->direct >> m & 1)
+				dir = en->sets;
+			else
+				ind = en->sets;
 			v->m[m].direct += dir;
 			v->m[m].indirect += ind;
-			v->day[(size_t)en->day * SD_NMUSCLES + (size_t)m] += w * en->sets;
-			if (add_source(v, &cap, m, en->ex, dir, ind, w * en->sets, e))
+			v->day[(size_t)en->day * SD_NMUSCLES + (size_t)m] += w[m] * en->sets;
+			if (add_source(v, &cap, m, en->ex, dir, ind, w[m] * en->sets, e))
 				goto fail;
 		}
 	}

@@ -41,6 +41,10 @@ struct sd_volume {
 	int nsrc;
 };
 
+/* What one hard set of exercise x adds to each muscle: w_direct for a prime mover, w_indirect
+ * for a synergist (a muscle listed both ways counts once, as direct), 0 elsewhere. */
+void vol_weights(const struct sd_exercise *x, double w_direct, double w_indirect,
+		 double w[SD_NMUSCLES]);
 /* Counts a program. Fails only on allocation failure. */
 int vol_count(const struct sd_program *p, const struct sd_library *lib, double w_direct,
 	      double w_indirect, int max_rir, struct sd_volume *v, struct sd_err *e);

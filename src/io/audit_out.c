@@ -263,15 +263,33 @@ void aout_sum_head(const struct sd_sumout *o)
 {
 	if (o->csv) {
 		fprintf(o->f, "%sprogram,muscle,fractional,gain_pct,curve_low,curve_high,athlete_low,"
-			"athlete_high,plus1_pct,plus1_low,plus1_high,zone,beyond_evidence%s\n",
-			o->with_athlete ? "athlete," : "", o->with_athlete ? ",overdue_days" : "");
+			"athlete_high,plus1_pct,plus1_low,plus1_high,zone,beyond_evidence%s%s\n",
+			o->with_athlete ? "athlete," : "", o->with_athlete ? ",overdue_days" : "",
+			o->with_done ? ",done" : "");
 		return;
 	}
 	if (o->with_athlete)
 		fprintf(o->f, "%-*s  ", o->wa, "athlete");
-	fprintf(o->f, "%-*s  %-11s  %10s  %6s  %8s  %8s  %10s  %10s  %6s  %8s  %8s  %s\n", o->wp,
-		"program", "muscle", "fractional", "gain%", "curve_lo", "curve_hi", "athlete_lo",
-		"athlete_hi", "+1set%", "+1set_lo", "+1set_hi", "zone");
+	if (o->with_done)
+		fprintf(o->f, "%6s  ", "done");
+	fprintf(o->f, "%-*s  %-11s  %10s  ", o->wp, "program", "muscle", "fractional");
+	fprintf(o->f, "%6s  %8s  %8s  %10s  %10s  %6s  %8s  %8s  %s\n", "gain%", "curve_lo",
+		"curve_hi", "athlete_lo", "athlete_hi", "+1set%", "+1set_lo", "+1set_hi", "zone");
+}
+
+/* The logged dose of muscle m as a cell: empty when nothing was logged. */
+static void done_cell(const struct sd_sumout *o, int m)
+{
+	int logged = o->done && o->done->logged;
+
+	if (o->csv) {
+		if (logged)
+			fprintf(o->f, "%.2f", o->done->dose[m]);
+	} else if (logged) {
+		fprintf(o->f, "%6.1f  ", o->done->dose[m]);
+	} else {
+		fprintf(o->f, "%6s  ", "-");
+	}
 }
 
 /* The rows' text, built in memory without stdio: this is the inner loop of a batch audit. */
@@ -401,16 +419,25 @@ int aout_sum_format(const struct sd_sumout *o, const struct sd_audit_info *in,
 void aout_sum_print(const struct sd_sumout *o, const struct sd_audit_info *in,
 		    const struct sd_sumrows *r)
 {
-	for (const char *line = r->text, *nl; (nl = strchr(line, '\n')); line = nl + 1) {
+	/* The athlete's own cells (name, the dose logged, days overdue) go around the shared
+	 * text: the athlete and the dose done first in the table, last in CSV. */
+	int m = 0;
+	for (const char *line = r->text, *nl; (nl = strchr(line, '\n')); line = nl + 1, m++) {
 		if (o->with_athlete && o->csv) {
 			tbl_csv_field(o->f, in->athlete ? in->athlete : "");
 			fputc(',', o->f);
 		} else if (o->with_athlete) {
 			fprintf(o->f, "%-*s  ", o->wa, in->athlete ? in->athlete : "");
 		}
+		if (o->with_done && !o->csv)
+			done_cell(o, m);
 		fwrite(line, 1, (size_t)(nl - line), o->f);
 		if (o->with_athlete && o->csv)
 			fprintf(o->f, ",%d", in->overdue_days);
+		if (o->with_done && o->csv) {
+			fputc(',', o->f);
+			done_cell(o, m);
+		}
 		fputc('\n', o->f);
 	}
 }
@@ -469,7 +496,40 @@ static cJSON *muscle_json(const struct sd_audit_info *in, int m)
 	return o;
 }
 
+/* "logged": the block's logged average weekly dose, or null. */
+static void done_json(cJSON *o, const struct aout_done *d)
+{
+	cJSON *l, *ms;
+
+	if (!d || !d->logged) {
+		cJSON_AddNullToObject(o, "logged");
+		return;
+	}
+	if (!(l = cJSON_AddObjectToObject(o, "logged")))
+		return;
+	cJSON_AddStringToObject(l, "from", d->from);
+	cJSON_AddStringToObject(l, "to", d->to);
+	json_num(l, "weeks", d->weeks, 2);
+	cJSON_AddNumberToObject(l, "days", d->days);
+	if (!(ms = cJSON_AddArrayToObject(l, "muscles")))
+		return;
+	for (int m = 0; m < SD_NMUSCLES; m++) {
+		cJSON *x = cJSON_CreateObject();
+		if (!x)
+			return;
+		cJSON_AddStringToObject(x, "muscle", muscle_name(m));
+		json_num(x, "done", d->dose[m], 2);
+		cJSON_AddItemToArray(ms, x);
+	}
+}
+
 int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
+{
+	return aout_json_item_done(f, in, NULL, first);
+}
+
+int aout_json_item_done(FILE *f, const struct sd_audit_info *in, const struct aout_done *done,
+			int first)
 {
 	const struct sd_audit *a = in->audit;
 	cJSON *o = cJSON_CreateObject(), *ms, *ws;
@@ -497,6 +557,8 @@ int aout_json_item(FILE *f, const struct sd_audit_info *in, int first)
 	ms = cJSON_AddArrayToObject(o, "muscles");
 	for (int m = 0; ms && m < SD_NMUSCLES; m++)
 		cJSON_AddItemToArray(ms, muscle_json(in, m));
+	if (done)
+		done_json(o, done);
 	ws = cJSON_AddArrayToObject(o, "warnings");
 	for (int i = 0; ws && i < a->nwarn; i++) {
 		cJSON *w = cJSON_CreateObject();

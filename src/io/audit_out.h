@@ -43,11 +43,23 @@ int aout_gain_cells(struct sd_table *t, int c, const struct sd_point *pt,
 		    const struct sd_plus1 *p1, int precise);
 /* Summary lines, streamed (10,000 programs must not be held in memory): one line per
  * program (and athlete) and muscle. Widths are fixed up front by the caller. */
+/* What an athlete logged in a block (cmd/logdata.h): the average weekly dose per muscle over
+ * the block's span so far. */
+struct aout_done {
+	int logged;                 /* 0: nothing logged in the span (done is all 0) */
+	double dose[SD_NMUSCLES];
+	char from[11], to[11];      /* the span, YYYY-MM-DD */
+	double weeks;
+	int days;                   /* days with a logged hard set */
+};
+
 struct sd_sumout {
 	FILE *f;
 	int csv;
 	int with_athlete;
 	int wa, wp;                 /* athlete and program column widths (table only) */
+	int with_done;              /* a "done" column: after the athlete (table), last (CSV) */
+	const struct aout_done *done;  /* the current rows' logged dose; NULL or not logged: empty */
 };
 void aout_sum_head(const struct sd_sumout *o);
 /* One audit's summary rows; 0, or -1 when out of memory. */
@@ -67,6 +79,9 @@ void aout_sum_free(struct sd_sumrows *r);
  * closing brackets. */
 void aout_json_begin(FILE *f);
 int aout_json_item(FILE *f, const struct sd_audit_info *in, int first);
+/* The same with the block's logged dose as "logged" (null when nothing was logged). */
+int aout_json_item_done(FILE *f, const struct sd_audit_info *in, const struct aout_done *done,
+			int first);
 void aout_json_end(FILE *f);
 
 extern const char aout_caution[];

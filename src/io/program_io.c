@@ -66,56 +66,20 @@ static int oom(struct reader *r)
 	return sd_fail(r->e, "out of memory");
 }
 
-/* "unknown exercise 'x' (did you mean 'a', 'b' or 'c'?)" */
-static void unknown_exercise(struct reader *r, int line, const char *name)
-{
-	int idx[3], n = lib_suggest(r->lib, name, idx, 3);
-	char hint[256] = "";
-
-	if (n > 0) {
-		size_t used = (size_t)snprintf(hint, sizeof hint, " (did you mean ");
-		for (int i = 0; i < n && used < sizeof hint; i++)
-			used += (size_t)snprintf(hint + used, sizeof hint - used, "%s'%s'",
-						 i == 0 ? "" : (i == n - 1 ? " or " : ", "),
-						 r->lib->ex[idx[i]].name);
-		if (used < sizeof hint)
-			snprintf(hint + used, sizeof hint - used, "?)");
-	}
-	problem(r, line, "unknown exercise '%s'%s", name, hint);
-}
-
 /* The library index of name, or -1 after recording why there is none. */
 static int resolve(struct reader *r, int line, const char *name)
 {
-	struct sd_match m;
+	struct sd_err le;
+	int variant, ex = lib_resolve(r->lib, name, &variant, &le);
 
-	if (strlen(name) >= SD_NAME_MAX) {
-		problem(r, line, "exercise name longer than %d bytes", SD_NAME_MAX - 1);
+	if (ex < 0) {
+		problem(r, line, "%s", le.msg);
 		return -1;
 	}
-	switch (lib_match(r->lib, name, &m)) {
-	case SD_MATCH_EXACT:
-		return m.ex;
-	case SD_MATCH_VARIANT:
-		if (prog_note(r->p, line, r->p->ndays - 1, r->e, "line %d: '%s' counted as '%s'", line,
-			      name, r->lib->ex[m.ex].name))
-			return oom(r);
-		return m.ex;
-	case SD_MATCH_AMBIGUOUS: {
-		char list[400];
-		size_t used = 0;
-		list[0] = '\0';
-		for (int i = 0; i < m.nchoices && used < sizeof list; i++)
-			used += (size_t)snprintf(list + used, sizeof list - used, "%s'%s'",
-						 i == 0 ? "" : (i == m.nchoices - 1 ? " or " : ", "),
-						 r->lib->ex[m.choice[i]].name);
-		problem(r, line, "'%s' names more than one exercise; write %s", name, list);
-		return -1;
-	}
-	default:
-		unknown_exercise(r, line, name);
-		return -1;
-	}
+	if (variant && prog_note(r->p, line, r->p->ndays - 1, r->e, "line %d: '%s' counted as '%s'",
+				 line, name, r->lib->ex[ex].name))
+		return oom(r);
+	return ex;
 }
 
 static int find_day(const struct sd_program *p, const char *name)

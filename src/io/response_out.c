@@ -18,6 +18,7 @@ int resp_out_json(FILE *f, const struct resp_json *in, const struct sd_rec *obs)
 	cJSON_AddStringToObject(o, "status", in->trained ? "trained" : "untrained");
 	json_profile(o, in->prof);
 	json_sig(o, "test_error", in->test_sd);
+	json_sig(o, "estimate_error", in->est_sd);
 	json_sig(o, "level", in->level);
 	cJSON_AddNumberToObject(o, "window_days", (double)in->window);
 	if ((x = cJSON_AddObjectToObject(o, "variances"))) {

@@ -13,7 +13,7 @@ struct resp_json {
 	const char *athlete;
 	int trained;
 	const struct sd_profile *prof;
-	double test_sd, level;
+	double test_sd, est_sd, level;
 	long long window;
 	const struct resp_vars *vars;
 	const struct resp_personal *personal;

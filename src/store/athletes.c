@@ -280,14 +280,21 @@ done:
 
 int db_athlete_rm(struct sd_db *db, long long id, int cascade, struct sd_err *e)
 {
+	long long nl;
 	int nb, nt;
 
-	if (db_athlete_refs(db, id, &nb, &nt, e))
+	if (db_athlete_refs(db, id, &nb, &nt, e) || db_log_count(db, id, &nl, e))
 		return -1;
-	if ((nb || nt) && !cascade)
+	if ((nb || nt) && !nl && !cascade)
 		return sd_fail(e, "athlete has %d block%s and %d test%s (use --cascade to remove them too)",
 			       nb, nb == 1 ? "" : "s", nt, nt == 1 ? "" : "s");
-	if (delete_where(db, "DELETE FROM tests WHERE athlete_id = ?1", id, e) ||
+	if (nl && !cascade)
+		return sd_fail(e, "athlete has %d block%s, %d test%s and %lld logged row%s (use "
+			       "--cascade to remove them too)", nb, nb == 1 ? "" : "s", nt,
+			       nt == 1 ? "" : "s", nl, nl == 1 ? "" : "s");
+	if (delete_where(db, "DELETE FROM log_weeks WHERE athlete_id = ?1", id, e) ||
+	    delete_where(db, "DELETE FROM logs WHERE athlete_id = ?1", id, e) ||
+	    delete_where(db, "DELETE FROM tests WHERE athlete_id = ?1", id, e) ||
 	    delete_where(db, "DELETE FROM blocks WHERE athlete_id = ?1", id, e) ||
 	    delete_where(db, "DELETE FROM athletes WHERE id = ?1", id, e))
 		return -1;

@@ -20,6 +20,8 @@
 #define DB_DATE_LEN 11          /* "YYYY-MM-DD" and its NUL */
 #define DB_STAMP_LEN 20         /* "YYYY-MM-DD HH:MM:SS" and its NUL */
 #define DB_FORMULA_MAX 16
+#define DB_EFFORT_MAX 16        /* a log row's effort as written: "RPE 8.5", "RIR 1-2" */
+#define DB_SOURCE_MAX 96        /* a log row's origin: "FILE line N" */
 
 struct sd_db;
 
@@ -62,9 +64,51 @@ struct db_test {
 	char formula[DB_FORMULA_MAX];
 };
 
+/* One row of the training log (db/002_logs.sql says how rows are recognised as the same). */
+struct db_log {
+	long long athlete_id;
+	char date[DB_DATE_LEN];
+	char exercise[DB_NAME_MAX]; /* the library's canonical name */
+	int sets;                   /* identical sets the row stands for, 1..100 */
+	int reps;                   /* reps of each, or seconds when timed */
+	int timed;
+	double rir;                 /* reps in reserve; -1 when the log did not record an effort */
+	char effort[DB_EFFORT_MAX]; /* the effort as written ("RPE 8"), "" when none */
+	double load;                /* in unit as entered; 0 with unit "" (no load) */
+	char unit[3];               /* "kg", "lb" or "" */
+	int ordinal;                /* place among the identical rows of its athlete and day in
+				     * its file, from 1 */
+	char source[DB_SOURCE_MAX]; /* where it was first imported from (not part of identity) */
+};
+
+/* The log summed per day and exercise, for the weekly aggregation: sets whose RIR is at most
+ * max_rir, above it, and without a recorded effort. */
+struct db_log_sum {
+	char date[DB_DATE_LEN];
+	char exercise[DB_NAME_MAX];
+	int within, above, unrecorded;
+};
+
+/* The log summed per ISO week (its Monday), exercise and RIR (-1: not recorded), with the days
+ * of the week the sets were logged on (bit d: day d, 0 Monday). */
+struct db_log_week {
+	char monday[DB_DATE_LEN];
+	char exercise[DB_NAME_MAX];
+	double rir;
+	int sets;
+	unsigned days;
+};
+
 /* Called once per record by the *_each functions; a non-zero return stops the walk and is
  * returned (a callback that fails fills its own error). */
 typedef int (*db_block_fn)(const struct db_block *b, void *arg);
+/* Log rows; athlete is the athlete's name. */
+typedef int (*db_log_fn)(const struct db_log *r, const char *athlete, void *arg);
+typedef int (*db_log_sum_fn)(const struct db_log_sum *s, void *arg);
+typedef int (*db_log_week_fn)(const struct db_log_week *w, void *arg);
+/* Hands out the rows to add one by one: 1 with *out filled, 0 at the end, -1 on an error
+ * (filled by the producer). */
+typedef int (*db_log_next_fn)(void *arg, struct db_log *out, struct sd_err *e);
 
 /* Opens the database at path: a new file (and its folder) is created read-write and migrated;
  * an existing one is opened read-only (so reading works on a read-only file or folder) and
@@ -188,5 +232,30 @@ int db_test_add(struct sd_db *db, const struct db_test *t, long long *id, struct
 /* Tests of one athlete, optionally of one lift (NULL: all), by lift, date, id; *out malloc'd. */
 int db_test_list(struct sd_db *db, long long athlete_id, const char *lift, struct db_test **out,
 		 int *n, struct sd_err *e);
+
+/* The training log (store/logs.c). */
+/* Adds rows inside the caller's transaction (db_begin .. db_commit), all through one prepared
+ * statement; a row identical to a stored one (same identity, see db/002_logs.sql) is
+ * skipped. *added gets how many were new; the weekly sums (db_log_weeks) grow by them. */
+int db_log_add(struct sd_db *db, db_log_next_fn next, void *arg, long long *added,
+	       struct sd_err *e);
+/* Walks the rows of one athlete (athlete_id > 0) or of all, by athlete name, date, id,
+ * between from and to (inclusive; NULL: open). Returns 0, -1 or the callback's value. */
+int db_log_each(struct sd_db *db, long long athlete_id, const char *from, const char *to,
+		db_log_fn fn, void *arg, struct sd_err *e);
+/* Walks one athlete's log summed per date and exercise (dates in order) between from and to
+ * (NULL: open), counting sets against max_rir. Reads the index only. */
+int db_log_sums(struct sd_db *db, long long athlete_id, const char *from, const char *to,
+		double max_rir, db_log_sum_fn fn, void *arg, struct sd_err *e);
+/* Walks one athlete's log summed per week, exercise and RIR, for the weeks whose Monday is
+ * between from and to (NULL: open), in week order. Reads one row per week, exercise and
+ * effort however many sets were logged. */
+int db_log_weeks(struct sd_db *db, long long athlete_id, const char *from, const char *to,
+		 db_log_week_fn fn, void *arg, struct sd_err *e);
+/* Rows stored for an athlete (athlete_id > 0) or in all; and whether any exist between
+ * from and to. */
+int db_log_count(struct sd_db *db, long long athlete_id, long long *n, struct sd_err *e);
+int db_log_any(struct sd_db *db, long long athlete_id, const char *from, const char *to,
+	       int *any, struct sd_err *e);
 
 #endif

@@ -45,6 +45,8 @@ int dbi_open_ro(struct sd_db *db, struct sd_err *e);
 /* Checks a finished copy at path (integrity_check, foreign_key_check) without creating
  * files beside it: 0 when it passes, else -1 with the first problems in msg. */
 int dbi_check_copy(const char *path, char *msg, size_t n);
+/* Recomputes the weekly sums of the log (log_weeks) from its rows (logs.c). */
+int dbi_log_rebuild_weeks(struct sd_db *db, struct sd_err *e);
 /* Applies the embedded migrations (migrate.c). */
 int dbi_migrate(struct sd_db *db, struct sd_err *e);
 

@@ -25,6 +25,7 @@ struct table_copy {
 	sqlite3_stmt *read, *probe, *ins;
 	long long rows, dropped;
 	int damaged;
+	int derived;     /* rebuilt from other tables rather than copied */
 };
 
 /* Column names of table t on connection h ("main" schema); -1 when unreadable. */
@@ -229,6 +230,8 @@ static void describe(const struct table_copy *tabs, int n, struct db_recovery *r
 	r->detail[0] = '\0';
 	for (int i = 0; i < n && used < sizeof r->detail; i++) {
 		const struct table_copy *t = &tabs[i];
+		if (t->derived)
+			continue;
 		used += (size_t)snprintf(r->detail + used, sizeof r->detail - used, "%s%s %lld",
 					 i ? ", " : "", t->name, t->rows);
 		if (used < sizeof r->detail && (t->dropped || t->damaged))
@@ -289,6 +292,11 @@ int db_recover(const char *src, const char *dest, const char *label, struct db_r
 		goto done;
 	for (int i = 0; i < n; i++) {
 		tabs[i].name = names[i];
+		/* Derived from logs: rebuilt below from the rows that were saved. */
+		if (!strcmp(names[i], "log_weeks")) {
+			tabs[i].derived = 1;
+			continue;
+		}
 		if (prepare(in->h, out->h, &tabs[i])) {
 			tabs[i].damaged++;   /* its schema or first page cannot be read */
 			continue;
@@ -302,7 +310,7 @@ int db_recover(const char *src, const char *dest, const char *label, struct db_r
 		goto done;
 	}
 	drop_orphans(out->h, tabs, n);
-	if (db_commit(out, e))
+	if (dbi_log_rebuild_weeks(out, e) || db_commit(out, e))
 		goto done;
 	r->tables = readable;
 	describe(tabs, n, r);

@@ -78,6 +78,32 @@ struct tui_resp {
 	char err[512];
 };
 
+/* The athlete page's training log panel: the current block's weeks done against planned per
+ * muscle, its logged average dose, and each lift's weekly best e1RM, from the same code as
+ * `log weeks` and `log e1rm` (app/logdata.h). */
+#define TUI_LOG_WEEKS 12                 /* most recent weeks of the block kept */
+#define TUI_LOG_LIFTS 4
+
+struct tui_liftrend {
+	char lift[DB_NAME_MAX];
+	int n;                           /* weeks with an estimate, up to TUI_LOG_WEEKS (latest) */
+	double v[TUI_LOG_WEEKS];         /* weekly best e1RM, kg, oldest first */
+};
+
+struct tui_logview {
+	int ok;                          /* the block has logged sets */
+	long long block;
+	int nweeks;                      /* weeks kept (the block's latest) */
+	char first[12], last[12];        /* ISO week labels of the first and last kept */
+	double planned[SD_NMUSCLES];     /* the block's planned weekly dose */
+	double done[SD_NMUSCLES];        /* its logged average weekly dose */
+	double ratio[TUI_LOG_WEEKS][SD_NMUSCLES];  /* done / planned per week; -1: none planned */
+	int order[SD_NMUSCLES], nmus;    /* planned muscles, largest planned dose first */
+	struct tui_liftrend lift[TUI_LOG_LIFTS];
+	int nlift;
+	char err[256];
+};
+
 /* Forms and confirmations: what saving or a yes does. */
 enum {
 	TUI_FORM_ATHLETE_NEW = 1, TUI_FORM_ATHLETE_EDIT, TUI_FORM_BLOCK, TUI_FORM_TEST,
@@ -110,6 +136,7 @@ struct tui_app {
 	unsigned char *row_ok;           /* athlete page: selectable rows */
 	int nrows;
 	struct tui_resp resp;
+	struct tui_logview log;
 
 	struct tui_subject a, b;         /* dose and curve views use a; compare uses a and b */
 	long long remove_id;             /* athlete a confirmed removal applies to */

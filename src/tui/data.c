@@ -1,11 +1,13 @@
 /* What the views show, read from the store and computed by the same functions the commands
- * use: audit_run for doses, cmd/respdata.c (as `setdose response`) for the personal response. */
+ * use: audit_run for doses, app/respdata.c (as `setdose response`) for the personal response. */
 #include <ctype.h>
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
 
+#include "../app/logdata.h"
 #include "../app/respdata.h"
+#include "../core/e1rm.h"
 #include "../io/program_io.h"
 #include "app.h"
 
@@ -163,10 +165,11 @@ void tui_resp_free(struct tui_resp *r)
 	memset(r, 0, sizeof *r);
 }
 
-/* The same computation as `setdose response ATHLETE` (cmd/respdata.c), with its defaults. */
+/* The same computation as `setdose response ATHLETE` (app/respdata.c), with its defaults. */
 static void load_response(struct tui_app *a)
 {
-	struct resp_opts ro = { RESP_TEST_SD, RESPD_PRIOR_PROFILE, a->ctx->opt.level, 0 };
+	struct resp_opts ro = { RESP_TEST_SD, RESPD_PRIOR_PROFILE, a->ctx->opt.level, 0,
+				RESP_ESTIMATE_SD };
 	struct resp_data d;
 	struct sd_err e;
 	struct tui_resp *r = &a->resp;
@@ -204,6 +207,108 @@ static void load_response(struct tui_app *a)
 	r->estimated = d.vars.estimated;
 	r->ok = 1;
 	respd_free(&d);
+}
+
+/* The block the log panel shows: the current one, else the latest (blocks are in that
+ * order, block_order). */
+static const struct db_block *log_block(const struct tui_app *a)
+{
+	return a->nblocks ? &a->blocks[0] : NULL;
+}
+
+/* The planned muscles, largest planned dose first (then in the fixed muscle order). */
+static void muscle_order(struct tui_logview *lv)
+{
+	for (int m = 0; m < SD_NMUSCLES; m++) {
+		int k;
+		if (!(lv->planned[m] > 0 || lv->done[m] > 0))
+			continue;
+		for (k = lv->nmus; k > 0 && lv->planned[lv->order[k - 1]] < lv->planned[m]; k--)
+			lv->order[k] = lv->order[k - 1];
+		lv->order[k] = m;
+		lv->nmus++;
+	}
+}
+
+/* Each lift's weekly bests in the block, the lifts with the most weeks first. */
+static void log_lifts(struct tui_app *a, const struct tlog_trend *t)
+{
+	struct tui_logview *lv = &a->log;
+
+	for (int i = 0; i < t->n;) {
+		int j = i;
+		while (j < t->n && t->v[j].ex == t->v[i].ex)
+			j++;
+		int k = lv->nlift;
+		if (k == TUI_LOG_LIFTS) {
+			/* Full: replace the lift with the fewest weeks if this one has more. */
+			k = 0;
+			for (int q = 1; q < TUI_LOG_LIFTS; q++)
+				if (lv->lift[q].n < lv->lift[k].n)
+					k = q;
+			if (lv->lift[k].n >= (j - i < TUI_LOG_WEEKS ? j - i : TUI_LOG_WEEKS)) {
+				i = j;
+				continue;
+			}
+		} else {
+			lv->nlift++;
+		}
+		struct tui_liftrend *l = &lv->lift[k];
+		int from = j - i > TUI_LOG_WEEKS ? j - TUI_LOG_WEEKS : i;
+		snprintf(l->lift, sizeof l->lift, "%s", a->ctx->lib.ex[t->v[i].ex].name);
+		l->n = j - from;
+		for (int q = from; q < j; q++)
+			l->v[q - from] = t->v[q].e1rm_kg;
+		i = j;
+	}
+}
+
+/* The log panel of the athlete page, from the code behind `log weeks` and `log e1rm`. */
+static void load_log(struct tui_app *a)
+{
+	struct tui_logview *lv = &a->log;
+	const struct db_block *b = log_block(a);
+	struct tlog_weeks ws = { 0 };
+	struct tlog_trend t = { 0 };
+	struct tlog_span span;
+	struct sd_err e;
+	char from[DATE_LEN], to[DATE_LEN];
+	int sessions;
+
+	memset(lv, 0, sizeof *lv);
+	sd_err_clear(&e);
+	if (!b)
+		return;
+	if (logd_block_done(a->ctx, b, lv->done, &span, &e))
+		goto fail;
+	if (!span.rows)
+		return;
+	if (logd_block_plan(a->ctx, b, lv->planned, &sessions, &e) ||
+	    logd_weeks(a->ctx, a->cur.id, b, 1, b->id, &ws, &e))
+		goto fail;
+	date_format(span.from, from);
+	date_format(span.to, to);
+	if (logd_trend(a->ctx, a->cur.id, E1RM_DEFAULT, from, to, &t, &e))
+		goto fail;
+	lv->block = b->id;
+	lv->nweeks = ws.n < TUI_LOG_WEEKS ? ws.n : TUI_LOG_WEEKS;
+	for (int i = 0; i < lv->nweeks; i++) {
+		const struct tlog_week *w = &ws.w[ws.n - lv->nweeks + i];
+		for (int m = 0; m < SD_NMUSCLES; m++)
+			lv->ratio[i][m] = w->planned[m] > 0 ? w->done[m] / w->planned[m] : -1;
+		if (i == 0)
+			snprintf(lv->first, sizeof lv->first, "%04d-W%02d", w->year, w->week);
+		snprintf(lv->last, sizeof lv->last, "%04d-W%02d", w->year, w->week);
+	}
+	muscle_order(lv);
+	log_lifts(a, &t);
+	lv->ok = 1;
+	goto done;
+fail:
+	snprintf(lv->err, sizeof lv->err, "%s", e.msg);
+done:
+	tlog_weeks_free(&ws);
+	tlog_trend_free(&t);
 }
 
 int tui_athlete_row(const struct tui_app *a, int i, int *idx)
@@ -270,6 +375,7 @@ int tui_load_athlete(struct tui_app *a, long long id, struct sd_err *e)
 	/* Rows move when a block or test is added: stay off the headings. */
 	tui_list_move_skip(&a->st.athlete, 0, a->row_ok);
 	load_response(a);
+	load_log(a);
 	return 0;
 fail:
 	free(b);

@@ -1,5 +1,7 @@
-/* An athlete's page: blocks (the current one first), strength tests (newest first) and the
- * personal response estimate. */
+/* An athlete's page: blocks (the current one first), strength tests (newest first), the
+ * training log of the current block (weeks done against planned per muscle, the logged
+ * average dose, each lift's e1RM trend) when it has logged sets, and the personal response
+ * estimate. */
 #include <curses.h>
 #include <stdio.h>
 #include <string.h>
@@ -107,6 +109,106 @@ static void response_text(struct tui_app *a, char *l1, char *l2, size_t n)
 		 r->obs[r->nobs - 1].pctile);
 }
 
+/* Log panel cells: a muscle's strip (name, a cell per week, average done/planned) and a
+ * lift's trend take about this many columns; as many as fit go side by side. */
+#define LOG_CELL_W 38
+
+static int log_percol(void)
+{
+	int n = (COLS - 2) / LOG_CELL_W;
+	return n < 1 ? 1 : n;
+}
+
+static int log_lift_rows(const struct tui_app *a)
+{
+	int n = (a->log.nlift + log_percol() - 1) / log_percol();
+	return n > 2 ? 2 : n;
+}
+
+/* Rows the log panel takes: a title, the strips, the lifts; at most a third of the screen. */
+static int log_rows(const struct tui_app *a)
+{
+	int avail = LINES / 3, strips;
+
+	if (!a->log.ok && !a->log.err[0])
+		return 0;
+	if (!a->log.ok)
+		return 2;
+	strips = (a->log.nmus + log_percol() - 1) / log_percol();
+	if (strips > avail - 1 - log_lift_rows(a))
+		strips = avail - 1 - log_lift_rows(a);
+	return 1 + (strips > 0 ? strips : 0) + log_lift_rows(a);
+}
+
+/* A week's cell: how much of the planned dose was done, in eight steps (ASCII: five). */
+static void week_cell(struct tui_app *a, int y, int x, double r)
+{
+	static const char *const bars[] = { "\u2581", "\u2582", "\u2583", "\u2584", "\u2585",
+					    "\u2586", "\u2587", "\u2588" };
+	static const char *const ascii[] = { "_", "-", "=", "+", "#" };
+	enum tui_role role = r >= 0.9 ? TR_OK : r >= 0.5 ? TR_PLAIN : TR_WARN;
+	const char *g;
+
+	if (r < 0) {
+		tui_put(y, x, 1, TR_DIM, " ");
+		return;
+	}
+	if (r == 0)
+		g = a->unicode ? "\u00b7" : ".";
+	else if (a->unicode)
+		g = bars[r >= 1 ? 7 : (int)(r * 8)];
+	else
+		g = ascii[r >= 1 ? 4 : (int)(r * 5)];
+	tui_put(y, x, 1, role, g);
+}
+
+/* A lift's weekly bests as a line of bars between its lowest and highest week. */
+static void sparkline(struct tui_app *a, int y, int x, const struct tui_liftrend *l)
+{
+	double lo = l->v[0], hi = l->v[0];
+
+	for (int i = 1; i < l->n; i++) {
+		lo = l->v[i] < lo ? l->v[i] : lo;
+		hi = l->v[i] > hi ? l->v[i] : hi;
+	}
+	for (int i = 0; i < l->n; i++)
+		week_cell(a, y, x + i, hi > lo ? 0.125 + 0.875 * (l->v[i] - lo) / (hi - lo) : 1);
+}
+
+static void draw_log(struct tui_app *a, int y, int nrows)
+{
+	const struct tui_logview *lv = &a->log;
+	int percol = log_percol(), lifts = log_lift_rows(a), strips = nrows - 1 - lifts;
+	int lb = app_lb(a->ctx, &a->cur), nw = lv->nweeks;
+	char title[160];
+
+	tui_hline(y, 0, COLS);
+	if (!lv->ok) {
+		tui_put(y, 2, 16, TR_HEAD, " training log ");
+		tui_putf(y + 1, 2, COLS - 3, TR_ERR, "cannot show it: %s", lv->err);
+		return;
+	}
+	snprintf(title, sizeof title, " training log, block #%lld, %s to %s: weeks done/planned, "
+		 "average ", lv->block, lv->first, lv->last);
+	tui_put(y, 2, COLS - 4, TR_HEAD, title);
+	for (int k = 0; k < strips * percol && k < lv->nmus; k++) {
+		int m = lv->order[k], row = y + 1 + k / percol, x = 1 + (k % percol) * LOG_CELL_W;
+		tui_putf(row, x, 12, TR_PLAIN, "%-11s", muscle_name(m));
+		for (int i = 0; i < nw; i++)
+			week_cell(a, row, x + 12 + i, lv->ratio[i][m]);
+		tui_putf(row, x + 13 + nw, LOG_CELL_W - 14 - nw, TR_PLAIN, "%4.1f/%.1f", lv->done[m],
+			 lv->planned[m]);
+	}
+	for (int k = 0; k < lifts * percol && k < lv->nlift; k++) {
+		const struct tui_liftrend *l = &lv->lift[k];
+		int row = y + 1 + strips + k / percol, x = 1 + (k % percol) * LOG_CELL_W;
+		int w = tui_putf(row, x, 17, TR_PLAIN, "%.16s", l->lift);
+		sparkline(a, row, x + w + 1, l);
+		tui_putf(row, x + w + 2 + l->n, LOG_CELL_W - w - 3 - l->n, TR_PLAIN, "e1RM %.1f %s",
+			 units_show(l->v[l->n - 1], lb), units_name(lb));
+	}
+}
+
 /* The panel under the lists, its text broken between words; n1 and n2 lines of it. */
 static void draw_response(struct tui_app *a, int y, const char *l1, int n1, const char *l2, int n2)
 {
@@ -120,7 +222,7 @@ static void draw(struct tui_app *a)
 {
 	const struct db_athlete *at = &a->cur;
 	char head[1200], l1[300], l2[400];
-	int top = 3, panel, rows, n1, n2;
+	int top = 3, panel, rows, n1, n2, logrows = log_rows(a);
 
 	/* The name and what is known of the athlete on the two lines above the lists, broken
 	 * between words; the name drawn again over its own words, in the heading's role. */
@@ -134,10 +236,10 @@ static void draw(struct tui_app *a)
 	n1 = tui_wrapped_lines(COLS - 3, 2, l1);
 	n2 = tui_wrapped_lines(COLS - 3, 2, l2);
 	/* The panel takes what its text needs, keeping at least 4 list rows (then it is cut). */
-	while (n1 + n2 > 2 && LINES - 1 - top - (1 + n1 + n2) - 1 < 4)
+	while (n1 + n2 > 2 && LINES - 1 - top - (1 + n1 + n2) - 1 - logrows < 4)
 		n2 > 1 ? n2-- : n1--;
 	panel = 1 + n1 + n2;
-	rows = LINES - 1 - top - panel - 1;
+	rows = LINES - 1 - top - panel - 1 - logrows;
 	tui_list_fit(&a->st.athlete, rows > 1 ? rows : 1);
 	for (int r = 0; r < a->st.athlete.rows && a->st.athlete.top + r < a->nrows; r++) {
 		int i = a->st.athlete.top + r, idx, y = top + r;
@@ -161,6 +263,8 @@ static void draw(struct tui_app *a)
 			break;
 		}
 	}
+	if (logrows)
+		draw_log(a, LINES - 1 - panel - 1 - logrows, logrows);
 	draw_response(a, LINES - 1 - panel - 1, l1, n1, l2, n2);
 	tui_putf(LINES - 2, 1, COLS - 2, TR_DIM, "Enter dose %s k curve %s b block %s t test %s "
 		 "f finish %s Esc back", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|",

@@ -75,7 +75,7 @@ has err "^setdose: database 'hurt.db' is damaged: its copy fails the check"
 check "no backup file for a damaged database" test ! -e hurt-copy.db
 hasnt out "backed up" "a damaged database is not called backed up"
 run 0 "$SD" --db hurt.db db recover saved.db
-has out "^recovered [0-9]+ rows of hurt.db into saved.db: athletes 8, programs 3, blocks [0-9]+, tests [0-9]+ \([0-9]+ left out, 1 damaged region skipped\)$"
+has out "^recovered [0-9]+ rows of hurt.db into saved.db: athletes 8, programs 3, blocks [0-9]+, tests [0-9]+ \([0-9]+ left out, 1 damaged region skipped\), logs [0-9]+$"
 says out "note: .*1 damaged region skipped"
 run 0 "$SD" --db saved.db db check
 run 0 "$SD" --db saved.db athlete list

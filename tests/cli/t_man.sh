@@ -14,6 +14,8 @@ check "the man page has examples" test "$(wc -l <examples.sh)" -ge 10
 mkdir -p templates "$HOME"
 sed 's/^name *=.*/name = My week/' "$ROOT/profiles/demo-upperlower4.ini" >week.ini
 cp "$ROOT/profiles/demo-fullbody3.ini" other.ini
+# An invented week of logged sets for the log example.
+printf 'date,exercise,sets,reps,load,effort\n2025-01-06,back squat,3,5,100kg,RIR 2\n2025-01-08,bench press,3,8,70kg,RPE 8\n' >week1.csv
 cp "$ROOT/profiles/demo-"*.ini templates/
 PATH=$(dirname "$SD"):$PATH
 export PATH

@@ -17,8 +17,8 @@ has out "open, 93 days past its planned end$" "block list flags the open block 9
 run 0 S audit --all
 has out "^note: block 1 of 'Ida Fernhollow' is open 93 days past its planned end; end it with 'setdose block end 1'$" "audit --all names the overdue block"
 run 0 S audit --all --format csv
-has out '^athlete,program,.*,beyond_evidence,overdue_days$' "audit --all CSV has an overdue_days column"
-has out '^Ida Fernhollow,.*,93$' "audit --all CSV rows carry 93"
+has out '^athlete,program,.*,beyond_evidence,overdue_days,done$' "audit --all CSV has an overdue_days column (then the logged dose)"
+has out '^Ida Fernhollow,.*,93,$' "audit --all CSV rows carry 93 (and no logged dose)"
 run 0 S audit --all --format json
 check "audit --all JSON gives overdue_days 93" python3 -c "
 import json; a=json.load(open('$TMP/out'))['audits'][0]; assert a['overdue_days']==93, a"

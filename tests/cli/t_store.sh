@@ -194,7 +194,7 @@ head -3 "$TMP/out" >"$TMP/obs.csv"
 sed -n '5,6p' "$TMP/out" >"$TMP/pers.csv"
 check "response CSV: two observations and the personal table" test "$(wc -l <"$TMP/obs.csv")" -eq 3
 # block,lift,pre,post,e1rm_pre,e1rm_post,reps_pre,reps_post,change%,lnRR,dose,weeks,predicted%,
-# obs_lo%,obs_hi%,percentile,beyond
+# obs_lo%,obs_hi%,percentile,beyond,dose_from,planned,pre_from,post_from
 check "response: observations, predictions and percentiles agree with the hand computation" awk -F, '
 function Phi(z,  t, p, s) {   # Abramowitz & Stegun 26.2.17, |error| < 7.5e-8
 	s = z < 0; if (s) z = -z
@@ -224,8 +224,8 @@ END {
 	exit bad
 }' "$TMP/obs.csv"
 has obs.csv '^2,bench press,2024-01-05,2024-03-04,100\.000,110\.000,1,1,' "block A pairs the tests nearest its start and end"
-has obs.csv ',47\.74[0-9],$' "block A percentile 47.743 (hand)"
-has obs.csv ',35\.95[0-9],$' "block B percentile 35.956 (hand)"
+has obs.csv ',47\.74[0-9],,planned,8\.000,test,test$' "block A percentile 47.743 (hand), from the planned dose and tests"
+has obs.csv ',35\.95[0-9],,planned,8\.000,test,test$' "block B percentile 35.956 (hand), from the planned dose and tests"
 # observations,blocks,lnrr,sd,low,high,...,variances,var_athlete,var_block,test_error,level
 check "personal response: the posterior mean and SD agree with the hand computation" awk -F, -v want="$(cat "$TMP/want")" '
 NR == 2 { split(want, w, " "); d1 = $3 - w[1]; d2 = $4 - w[2]
@@ -387,15 +387,33 @@ check "all 50 tests landed" test "$(count tests)" -eq $((tests_before + 50))
 run 0 "$SD" db check
 
 # ---------------------------------------------------------------- the demo database
-# db/demo.sql (invented gym and athletes) loads into a scratch file and gives every command
-# something to show.
+# db/demo.sql (invented gym and athletes) and the invented log of tests/demo_logs.awk load
+# into a scratch file and give every command something to show.
 run 0 sh "$ROOT/tests/demo_db.sh" "$SD" "$TMP/demo.db"
 run 0 "$SD" --db "$TMP/demo.db" athlete list
 check "demo: 8 invented athletes" test "$(grep -c 'invented demo athlete' "$TMP/out")" -eq 8
 check "demo: both training statuses" sh -c "grep -q ' trained ' '$TMP/out' && grep -q ' untrained ' '$TMP/out'"
 check "demo: 2 or 3 completed blocks per athlete" test "$(sqlite3 "$TMP/demo.db" "SELECT count(*) FROM (SELECT athlete_id, count(*) n FROM blocks WHERE end_date IS NOT NULL GROUP BY athlete_id) WHERE n BETWEEN 2 AND 3")" -eq 8
 run 0 "$SD" --db "$TMP/demo.db" response "Caspian Hollowell"
-says out 'from 9 observations in 3 completed blocks'
+says out 'from [0-9]+ observations in 3 completed blocks'
+says out 'dose from the log \(the logged average\) in block' "demo response: the narrow table says which doses come from the log"
+# The invented log: some athletes adherent, some not, one who trained far less than planned.
+# The ratio of the logged dose to the planned one, averaged over each athlete's rows.
+done_ratio() {
+	"$SD" --db "$TMP/demo.db" response "$1" --format csv | awk -F, 'NF > 10 && $(NF-3) ~ /^(logged|planned)$/ {
+		n++; r += $(NF-10) / $(NF-2); if ($(NF-3) != "logged") bad = 1 }
+		END { if (bad || !n) print -1; else printf "%.2f\n", r / n }'
+}
+check "demo: Otto Vantwell did the plan (logged dose 95 % of planned or more)" \
+	awk -v r="$(done_ratio "Otto Vantwell")" 'BEGIN { exit !(r >= 0.95) }'
+check "demo: Maren Oakhollow is adherent (85 % or more)" \
+	awk -v r="$(done_ratio "Maren Oakhollow")" 'BEGIN { exit !(r >= 0.85) }'
+check "demo: Juno Saltmarsh is not (50 to 80 %)" \
+	awk -v r="$(done_ratio "Juno Saltmarsh")" 'BEGIN { exit !(r >= 0.5 && r <= 0.8) }'
+check "demo: Caspian Hollowell trained far less than planned (under half)" \
+	awk -v r="$(done_ratio "Caspian Hollowell")" 'BEGIN { exit !(r >= 0 && r < 0.5) }'
+run 0 "$SD" --db "$TMP/demo.db" log weeks "Caspian Hollowell" --format csv
+check "demo: log weeks shows sessions missed" awk -F, '$1 ~ /-W/ && $6 > 0 { m = 1 } END { exit !m }' "$TMP/out"
 run 0 "$SD" --db "$TMP/demo.db" audit --all --format csv
 check "demo: audit --all gives 16 rows for each of the 8 open blocks" test "$(wc -l <"$TMP/out")" -eq 129
 

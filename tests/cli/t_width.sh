@@ -109,8 +109,8 @@ run 0 "$SD" --db "$DB" response "Otto Vantwell"
 n_narrow=$(ncols '^block +lift')
 run 0 "$SD" --db "$DB" response --wide "Otto Vantwell"
 n_wide=$(ncols '^block +lift')
-check "response --wide: 17 columns against 8 ($n_wide, $n_narrow)" test "$n_wide" -eq 17 -a "$n_narrow" -eq 8
-has out '^block +lift +pre +post +e1rm_pre +e1rm_post +reps_pre +reps_post +change% +lnRR +dose +weeks +predicted% +obs_lo% +obs_hi% +percentile +beyond$'
+check "response --wide: 21 columns against 7 ($n_wide, $n_narrow)" test "$n_wide" -eq 21 -a "$n_narrow" -eq 7
+has out '^block +lift +pre +post +e1rm_pre +e1rm_post +reps_pre +reps_post +change% +lnRR +dose +weeks +predicted% +obs_lo% +obs_hi% +percentile +beyond +dose_from +planned +pre_from +post_from$'
 
 # returns: the default grid in two panels (to 1..15, then 20..30), --wide in one.
 run 0 "$SD" returns
@@ -144,12 +144,12 @@ check "returns: the same CSV with --wide" cmp -s a.csv b.csv
 run 0 "$SD" --format csv curve --no-plot
 has out '^sets,gain%,curve_lo,curve_hi,group_lo,group_hi,athlete_lo,athlete_hi,\+1set%,\+1set_lo,\+1set_hi,zone$' "curve CSV: every column"
 run 0 "$SD" --db "$DB" --format csv response "Otto Vantwell"
-has out '^block,lift,pre,post,e1rm_pre,e1rm_post,reps_pre,reps_post,change%,lnRR,dose,weeks,predicted%,obs_lo%,obs_hi%,percentile,beyond$' "response CSV: every column"
+has out '^block,lift,pre,post,e1rm_pre,e1rm_post,reps_pre,reps_post,change%,lnRR,dose,weeks,predicted%,obs_lo%,obs_hi%,percentile,beyond,dose_from,planned,pre_from,post_from$' "response CSV: every column"
 run 0 "$SD" --db "$DB" --format json response "Otto Vantwell"
 check "response JSON: every column in each observation" python3 -c '
 import json, sys
 d = json.load(open(sys.argv[1]))
-keys = set("block lift pre post e1rm_pre e1rm_post reps_pre reps_post change% lnRR dose weeks predicted% obs_lo% obs_hi% percentile beyond".split())
+keys = set("block lift pre post e1rm_pre e1rm_post reps_pre reps_post change% lnRR dose weeks predicted% obs_lo% obs_hi% percentile beyond dose_from planned pre_from post_from".split())
 assert d["observations"] and all(set(o) == keys for o in d["observations"])
 ' "$TMP/out"
 
