@@ -158,7 +158,7 @@ tui-test: $(B)/setdose $(MOD)
 # it into tests/fuzz/crashes/TARGET once fixed). `make fuzz-replay` (part of `make check`) runs
 # every seed and every input that ever crashed through the harnesses once; without clang it
 # says so, and tests/cli/t_fuzzcorpus.sh replays them through the setdose binary instead.
-FUZZ_TARGETS = program_ini program_csv library profile effects
+FUZZ_TARGETS = program_ini program_csv library profile effects log
 FUZZ_SECONDS ?= 60
 FUZZ_B       = build/fuzz
 FUZZ_BINS    = $(FUZZ_TARGETS:%=$(FUZZ_B)/bin/fuzz_%)

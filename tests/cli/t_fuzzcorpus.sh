@@ -39,3 +39,14 @@ for f in "$F"/corpus/effects/* "$F"/crashes/effects/*; do
 	try effects "$f" csv effects input.csv
 done
 check "the corpus was replayed ($n runs)" test "$n" -ge 50
+# Logs report every bad row, a line each: any number of lines, but exit 0 or 1, no crash.
+"$SD" athlete add "Fuzz Log" >/dev/null 2>&1
+for f in "$F"/corpus/log/* "$F"/crashes/log/*; do
+	[ -f "$f" ] || continue
+	cp "$f" input.csv
+	"$SD" log import input.csv --athlete "Fuzz Log" >"$TMP/out" 2>"$TMP/err"
+	got=$?
+	LAST_OUT=$TMP/err
+	if [ "$got" -le 1 ]; then _rec passed "log $(basename "$f"): log import exit $got"
+	else _rec failed "log $(basename "$f"): log import exit $got"; fi
+done
