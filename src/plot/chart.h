@@ -48,6 +48,7 @@ struct sd_chart {
 	const double *doses;            /* RETURNS: increasing weekly doses, or NULL for a default */
 	int ndoses;
 	struct chart_layout *layout;    /* or NULL */
+	int bare;                       /* 1: no title and context lines (a report page has them) */
 };
 
 /* One section of the report: a program audited for an athlete (or none), with the block it

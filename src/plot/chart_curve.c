@@ -197,6 +197,7 @@ void ch_draw_curve(struct cdraw *d, const struct sd_chart *c, struct rect r)
 		}
 	}
 	for (int i = 0; i < ng; i++) {
+		cairo_new_path(cr);
 		cairo_set_source_rgb(cr, 1, 1, 1);
 		cairo_arc(cr, pl[i].ax, pl[i].ay, pl[i].ar, 0, 2 * M_PI);
 		cairo_fill(cr);

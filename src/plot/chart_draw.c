@@ -223,6 +223,7 @@ double ch_legend(struct cdraw *d, double x, double y, double w, const struct swa
 			break;
 		case 2:
 			ch_col(cr, s[i].pal);
+			cairo_new_path(cr);
 			cairo_arc(cr, sw.x + 6, sw.y + 4, 3.2, 0, 2 * M_PI);
 			cairo_fill(cr);
 			break;
@@ -248,6 +249,8 @@ double ch_chart_head(struct cdraw *d, const struct sd_chart *c, struct rect r, c
 	char buf[300], note[240];
 	double y = r.y + 14;
 
+	if (c->bare)
+		return r.y;
 	ch_col(d->cr, PAL_INK);
 	ch_text(d, r.x, y, 12, 1, 0, title);
 	y += 13;

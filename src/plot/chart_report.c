@@ -27,7 +27,19 @@ struct flow {
 	int page, pages;           /* current page (1-based), total (from the dry pass) */
 	double y;
 	char foot[300];            /* the running footer of the current section */
+	/* A page that must break before the curve would be left part empty: its rows are spread
+	 * over it instead. The dry pass finds the page and the spacing, the real pass uses them. */
+	int rows;                  /* breakdown and warning rows on the current page */
+	double *pad;               /* per item: extra space under each row of that page */
+	int *padpage;              /* per item: the page it applies to */
+	int item;
 };
+
+/* The extra space under a row of the page being drawn. */
+static double row_pad(const struct flow *f)
+{
+	return f->page == f->padpage[f->item] ? f->pad[f->item] : 0;
+}
 
 static void footer(struct flow *f)
 {
@@ -57,6 +69,7 @@ static void new_page(struct flow *f)
 	f->page++;
 	f->d->page = f->page - 1;
 	f->y = TOP;
+	f->rows = 0;
 	cairo_set_source_rgb(f->d->cr, 1, 1, 1);
 	cairo_paint(f->d->cr);
 }
@@ -89,7 +102,8 @@ static void body(struct flow *f, double size, int bold, const char *s)
 	need(f, h);
 	ch_col(f->d->cr, PAL_INK);
 	f->y = ch_para(f->d, ML, f->y + size, CW, size, bold, s, 0) - size;
-	f->y += 2;
+	f->y += 2 + row_pad(f);
+	f->rows++;
 }
 
 /* A list of up to n names of muscles into buf: "a, b and c". */
@@ -145,9 +159,10 @@ static void findings(const struct sd_report_item *it, char out[3][420])
 	if (np) {
 		names(list, sizeof list, past, np > 6 ? 6 : np);
 		snprintf(out[1], 420, "Past practical returns: %s%s reach the practical plateau of %g "
-			 "weekly sets; more sets there add less than the smallest worthwhile change, so "
-			 "sets moved from them to the muscles above would buy more.", list,
-			 np > 6 ? " and others" : "", a->plateau);
+			 "weekly sets; more sets there add less than the smallest worthwhile change%s.",
+			 list, np > 6 ? " and others" : "", a->plateau, nb ? ", so sets moved from them to "
+			 "the muscles in point 1 would buy more" : ": fewer sets there would cost little "
+			 "predicted gain and save time and fatigue");
 	} else
 		snprintf(out[1], 420, "No muscle is past practical returns: every dose is below the "
 			 "practical plateau of %g weekly sets, where more sets still add a worthwhile "
@@ -232,7 +247,7 @@ static void findings_box(struct flow *f, const struct sd_report_item *it)
 	f->y += h + 8;
 }
 
-#define TROW 10.5
+#define TROW 10.0
 
 static void muscle_table(struct flow *f, const struct sd_audit *a)
 {
@@ -247,7 +262,7 @@ static void muscle_table(struct flow *f, const struct sd_audit *a)
 
 	need(f, 30 + SD_NMUSCLES * TROW);
 	ch_col(cr, PAL_INK);
-	f->y += 10;
+	f->y += 12;
 	for (int i = 0; i < NC; i++)
 		ch_text(f->d, ML + colx[i], f->y, 8, 1, i == 0 || i == NC - 1 ? 0 : 1, heads[i]);
 	f->y += 3;
@@ -359,11 +374,13 @@ static void breakdown(struct flow *f, const struct sd_report_item *it)
 		double h = fmax(ch_para(f->d, 0, 0, 145, 8, 0, dir, 1), ch_para(f->d, 0, 0, 150, 8, 0, ind, 1));
 		h = fmax(h, TROW);
 		need(f, h + 2);
+		double pad = row_pad(f);
 		if (i % 2) {
 			ch_col_tint(cr, PAL_GRID, 0.6);
-			cairo_rectangle(cr, ML, f->y, CW, h + 1);
+			cairo_rectangle(cr, ML, f->y, CW, h + 1 + pad);
 			cairo_fill(cr);
 		}
+		f->y += pad / 2;
 		ch_col(cr, PAL_INK);
 		const char *name = it->lib && l[i].ex >= 0 && l[i].ex < it->lib->n ? it->lib->ex[l[i].ex].name : "?";
 		ch_text(f->d, ML, f->y + 8, 8, 0, 0, name);
@@ -371,7 +388,8 @@ static void breakdown(struct flow *f, const struct sd_report_item *it)
 		ch_text(f->d, ML + 200, f->y + 8, 8, 0, 1, sets);
 		ch_para(f->d, ML + 212, f->y + 8, 145, 8, 0, dir, 0);
 		ch_para(f->d, ML + 362, f->y + 8, 150, 8, 0, ind, 0);
-		f->y += h + 1;
+		f->y += h + 1 + pad / 2;
+		f->rows++;
 	}
 	f->y += 4;
 }
@@ -439,7 +457,7 @@ static struct sd_chart chart_of(const struct sd_report_item *it, enum chart_kind
 {
 	const struct sd_audit *a = it->info.audit;
 	return (struct sd_chart){ k, it->info.prof, a->cov, a->level, a, NULL, it->info.prog->name,
-				  NULL, NULL, NULL, 0, lay };
+				  NULL, NULL, NULL, 0, lay, 0 };
 }
 
 static void section(struct flow *f, const struct sd_report_item *it, int *group)
@@ -453,7 +471,8 @@ static void section(struct flow *f, const struct sd_report_item *it, int *group)
 	findings_box(f, it);
 	/* The per-muscle chart takes the room the table leaves on page one. */
 	struct sd_chart c = chart_of(it, CHART_MUSCLES, f->d->lay);
-	double table_h = 30 + SD_NMUSCLES * TROW + 40;
+	double table_h = 24 + SD_NMUSCLES * TROW + 34;
+	c.bare = 1;
 	double room = BOTTOM - f->y - table_h;
 	double h = fmax(ch_muscles_height(&c, CW), room);
 	f->d->group = (*group)++;
@@ -466,11 +485,16 @@ static void section(struct flow *f, const struct sd_report_item *it, int *group)
 	warnings(f, it);
 	/* The curve fills what is left above the notes, on this page or the next. */
 	double ah = about_height(f, it);
-	if (BOTTOM - f->y - ah - 30 < 300)
+	if (BOTTOM - f->y - ah - 30 < 200) {
+		if (f->dry && f->rows) {
+			f->padpage[f->item] = f->page;
+			f->pad[f->item] = fmin(0.9 * (BOTTOM - f->y) / f->rows, 10);
+		}
 		new_page(f);
+	}
 	heading(f, "The curve and this program's muscles");
 	c = chart_of(it, CHART_CURVE, f->d->lay);
-	c.title = "Predicted 1RM gain against weekly sets";
+	c.bare = 1;
 	h = fmin(BOTTOM - f->y - ah, 560);
 	f->d->group = (*group)++;
 	ch_draw_curve(f->d, &c, (struct rect){ ML, f->y, CW, h });
@@ -538,6 +562,7 @@ static void run(struct flow *f, int *first_page)
 		contents(f, first_page);
 	for (int i = 0; i < f->r->n; i++) {
 		first_page[i] = f->page + 1;
+		f->item = i;
 		section(f, &f->r->item[i], &group);
 	}
 	content_mark(f);
@@ -548,9 +573,12 @@ static void run(struct flow *f, int *first_page)
 
 int ch_report_draw(cairo_surface_t *s, struct cdraw *d, const struct sd_report *r)
 {
-	int first[r->n > 0 ? r->n : 1];
+	int n = r->n > 0 ? r->n : 1, first[n], padpage[n];
+	double pad[n];
 	memset(first, 0, sizeof first);
-	struct flow f = { d, s, r, 1, 0, 0, 0, "" };
+	memset(pad, 0, sizeof pad);
+	memset(padpage, 0, sizeof padpage);
+	struct flow f = { d, s, r, 1, 0, 0, 0, "", 0, pad, padpage, 0 };
 	struct chart_layout *lay = d->lay;
 	cairo_t *real = d->cr;
 	cairo_surface_t *scratch = cairo_image_surface_create(CAIRO_FORMAT_RGB24, 1, 1);

@@ -9,11 +9,11 @@
 #include "../core/compare.h"
 #include "chart_int.h"
 
-#define ROW_H 17.0
+#define ROW_H 15.0
 #define NAME_W 78.0
 #define HEAD_H 46.0     /* title, context line, a possible evidence note */
 #define AXIS_H 34.0     /* ticks and titles under the rows */
-#define LEG_H 40.0
+#define LEG_H 28.0
 
 static int muscles_shown(const struct sd_audit *a, const struct sd_audit *b, int *m)
 {
@@ -28,7 +28,7 @@ double ch_muscles_height(const struct sd_chart *c, double w)
 {
 	int m[SD_NMUSCLES];
 	(void)w;
-	return HEAD_H + 16 + muscles_shown(c->audit, NULL, m) * ROW_H + AXIS_H + LEG_H;
+	return (c->bare ? 0 : HEAD_H) + 16 + muscles_shown(c->audit, NULL, m) * ROW_H + AXIS_H + LEG_H;
 }
 
 double ch_compare_height(const struct sd_chart *c, double w)
@@ -74,6 +74,7 @@ static void xaxis(struct cdraw *d, const struct frame *f, double y, const char *
 
 static void dot(struct cdraw *d, double x, double y, double r, enum sd_pal p, const char *what)
 {
+	cairo_new_path(d->cr);
 	cairo_set_source_rgb(d->cr, 1, 1, 1);
 	cairo_arc(d->cr, x, y, r, 0, 2 * M_PI);
 	cairo_fill(d->cr);
@@ -95,7 +96,8 @@ void ch_draw_muscles(struct cdraw *d, const struct sd_chart *c, struct rect r)
 	snprintf(title, sizeof title, "%s: each muscle's weekly dose and predicted gain",
 		 c->title ? c->title : "The program");
 	y = ch_chart_head(d, c, r, title);
-	y = fmax(y, r.y + HEAD_H);
+	if (!c->bare)
+		y = fmax(y, r.y + HEAD_H);
 	/* Rows grow into the height given (the report's page), up to a comfortable size. */
 	double rh = n ? fmin(fmax((r.y + r.h - y - 16 - AXIS_H - LEG_H) / n, ROW_H), 30) : ROW_H;
 	for (int i = 0; i < n; i++) {
