@@ -148,11 +148,15 @@ static void findings(const struct sd_report_item *it, char out[3][420])
 			nn++;
 	}
 	if (nb) {
-		names(list, sizeof list, best, nb);
-		snprintf(out[0], 420, "More sets pay most for %s: one more hard set a week adds about "
-			 "%.1f%s percentage points to the predicted 1RM gain%s.", list,
-			 a->row[best[0]].plus1.pct, nb > 1 ? " (the first)" : "",
-			 nn ? ", and some muscles get no sets at all" : "");
+		size_t u = 0;
+		list[0] = '\0';
+		for (int i = 0; i < nb && u < sizeof list; i++)
+			u += (size_t)snprintf(list + u, sizeof list - u, "%s%s (%+.1f)", i == 0 ? "" :
+					      i == nb - 1 ? " and " : ", ", muscle_name(best[i]),
+					      a->row[best[i]].plus1.pct);
+		snprintf(out[0], 420, "More sets pay most for %s: percentage points of predicted 1RM "
+			 "gain that one more hard set a week adds.%s", list,
+			 nn ? " Muscles with no sets at all gain most from their first." : "");
 	} else
 		snprintf(out[0], 420, "Every muscle is at or past the practical plateau (%g weekly "
 			 "sets): more sets would add little anywhere.", a->plateau);
@@ -464,9 +468,9 @@ static void section(struct flow *f, const struct sd_report_item *it, int *group)
 {
 	const struct sd_audit_info *in = &it->info;
 
+	new_page(f);
 	snprintf(f->foot, sizeof f->foot, "%s%s%s \xc2\xb7 %s", in->athlete ? in->athlete : "",
 		 in->athlete ? " \xc2\xb7 " : "", in->prog->name, f->r->date);
-	new_page(f);
 	header(f, it);
 	findings_box(f, it);
 	/* The per-muscle chart takes the room the table leaves on page one. */
