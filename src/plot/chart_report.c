@@ -506,6 +506,64 @@ static void section(struct flow *f, const struct sd_report_item *it, int *group)
 	about(f, it, 0);
 }
 
+/* The roster at a glance: a row per athlete, a column per muscle, each cell the weekly sets
+ * shaded by zone; its rows grow into the page's room (up to 28 points). */
+static void glance(struct flow *f)
+{
+	const struct sd_report *r = f->r;
+	cairo_t *cr = f->d->cr;
+	double namew = 96, cw = (CW - namew) / SD_NMUSCLES, headh = 52;
+	char buf[32];
+
+	heading(f, "At a glance: weekly sets per muscle, shaded by zone");
+	double room = BOTTOM - f->y - headh - 60;
+	double rh = fmin(fmax(room / (r->n ? r->n : 1), 12), 28);
+	need(f, headh + rh);
+	for (int m = 0; m < SD_NMUSCLES; m++) {
+		cairo_save(cr);
+		cairo_translate(cr, ML + namew + (m + 0.5) * cw + 3, f->y + headh - 4);
+		cairo_rotate(cr, -M_PI / 3);
+		ch_col(cr, PAL_INK);
+		ch_text(f->d, 0, 0, 8, 0, 0, muscle_name(m));
+		cairo_restore(cr);
+	}
+	f->y += headh;
+	for (int i = 0; i < r->n; i++) {
+		const struct sd_report_item *it = &r->item[i];
+		if (f->y + rh > BOTTOM) {
+			new_page(f);
+			f->y += 4;
+		}
+		ch_col(cr, PAL_INK);
+		ch_text(f->d, ML, f->y + rh / 2 + 3, 8.5, 0, 0, it->info.athlete ? it->info.athlete : it->info.prog->name);
+		for (int m = 0; m < SD_NMUSCLES; m++) {
+			const struct sd_audit_row *row = &it->info.audit->row[m];
+			struct rect c = { ML + namew + m * cw + 0.5, f->y + 0.5, cw - 1, rh - 1 };
+			if (row->zone == SD_ZONE_BEYOND)
+				ch_hatch(f->d, c);
+			else {
+				ch_col(cr, row->dose.fractional <= 0 ? PAL_GRID : row->zone == SD_ZONE_PLATEAU ?
+				       PAL_ZONE_PLATEAU : PAL_ZONE_CLIMB);
+				cairo_rectangle(cr, c.x, c.y, c.w, c.h);
+				cairo_fill_preserve(cr);
+				ch_col(cr, PAL_GRID);
+				cairo_set_line_width(cr, 0.5);
+				cairo_stroke(cr);
+			}
+			snprintf(buf, sizeof buf, "%.3g", row->dose.fractional);
+			ch_col(cr, PAL_INK);
+			ch_text(f->d, c.x + c.w / 2, c.y + c.h / 2 + 3, 8, 0, 0.5, buf);
+		}
+		f->y += rh;
+	}
+	f->y += 6;
+	struct swatch sw[] = { { PAL_ZONE_CLIMB, 0, "building" },
+			       { PAL_ZONE_PLATEAU, 0, "past practical returns" },
+			       { PAL_ZONE_BEYOND, 3, "beyond the evidence" }, { PAL_GRID, 0, "no sets" } };
+	need(f, 20);
+	f->y = ch_legend(f->d, ML, f->y + 10, CW, sw, 4);
+}
+
 static void contents(struct flow *f, const int *first_page)
 {
 	const struct sd_report *r = f->r;
@@ -531,29 +589,32 @@ static void contents(struct flow *f, const int *first_page)
 	need(f, 14);
 	f->y += 10;
 	ch_text(f->d, ML, f->y, 8.5, 1, 0, "athlete");
-	ch_text(f->d, ML + 150, f->y, 8.5, 1, 0, "template and block");
-	ch_text(f->d, ML + 400, f->y, 8.5, 1, 1, "hard sets");
+	ch_text(f->d, ML + 130, f->y, 8.5, 1, 0, "template and block");
+	ch_text(f->d, ML + 460, f->y, 8.5, 1, 1, "hard sets");
 	ch_text(f->d, PW - ML, f->y, 8.5, 1, 1, "page");
 	f->y += 4;
 	for (int i = 0; i < r->n; i++) {
 		const struct sd_report_item *it = &r->item[i];
-		need(f, 13);
+		need(f, 22);
 		if (i % 2) {
 			ch_col_tint(cr, PAL_GRID, 0.6);
-			cairo_rectangle(cr, ML, f->y, CW, 12);
+			cairo_rectangle(cr, ML, f->y, CW, 21);
 			cairo_fill(cr);
 		}
 		ch_col(cr, PAL_INK);
 		ch_text(f->d, ML, f->y + 9, 8.5, 0, 0, it->info.athlete ? it->info.athlete : it->info.prog->name);
-		snprintf(buf, sizeof buf, "%.40s%s%.60s", it->info.prog->name, it->block ? "; " : "",
-			 it->block ? it->block : "");
-		ch_text(f->d, ML + 150, f->y + 9, 8, 0, 0, buf);
+		ch_text(f->d, ML + 130, f->y + 9, 8.5, 0, 0, it->info.prog->name);
 		snprintf(buf, sizeof buf, "%d", it->info.audit->vol.hard_sets);
-		ch_text(f->d, ML + 400, f->y + 9, 8.5, 0, 1, buf);
+		ch_text(f->d, ML + 460, f->y + 9, 8.5, 0, 1, buf);
 		snprintf(buf, sizeof buf, "%d", first_page[i]);
 		ch_text(f->d, PW - ML, f->y + 9, 8.5, 0, 1, buf);
-		f->y += 12;
+		if (it->block) {
+			ch_col(cr, PAL_MUTED);
+			ch_text(f->d, ML + 130, f->y + 18.5, 8, 0, 0, it->block);
+		}
+		f->y += 21;
 	}
+	glance(f);
 	f->y += 6;
 	body(f, 8.5, 1, aout_caution);
 }
