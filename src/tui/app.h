@@ -78,8 +78,8 @@ struct tui_resp {
 /* Forms and confirmations: what saving or a yes does. */
 enum {
 	TUI_FORM_ATHLETE_NEW = 1, TUI_FORM_ATHLETE_EDIT, TUI_FORM_BLOCK, TUI_FORM_TEST,
-	TUI_FORM_SAVE_TEMPLATE,
-	TUI_ASK_REMOVE_ATHLETE, TUI_ASK_END_BLOCK, TUI_ASK_EDIT_AGAIN
+	TUI_FORM_SAVE_TEMPLATE, TUI_FORM_END_BLOCK, TUI_FORM_ADD_TEMPLATE,
+	TUI_ASK_REMOVE_ATHLETE, TUI_ASK_EDIT_AGAIN
 };
 
 struct tui_app {
@@ -108,7 +108,7 @@ struct tui_app {
 
 	struct tui_subject a, b;         /* dose and curve views use a; compare uses a and b */
 	long long remove_id;             /* athlete a confirmed removal applies to */
-	long long end_block;             /* block a confirmed end applies to */
+	long long end_block;             /* block the finish form ends */
 
 	char *edit_text;                 /* a template being edited, kept across retries */
 	size_t edit_len;
@@ -183,6 +183,10 @@ void tui_data_free(struct tui_app *a);
 void tui_form_open_athlete(struct tui_app *a, const struct db_athlete *edit);
 void tui_form_open_block(struct tui_app *a, long long athlete_id);
 void tui_form_open_test(struct tui_app *a);
+/* Finishing block b (of the athlete page): the end date, today unless changed. */
+void tui_form_open_end(struct tui_app *a, const struct db_block *b);
+/* Storing a template from a program file: its path and, optionally, a name. */
+void tui_form_open_add_template(struct tui_app *a);
 /* Handles a key while a form or confirmation is open. */
 void tui_form_key(struct tui_app *a, int ch);
 void tui_confirm_key(struct tui_app *a, int ch);

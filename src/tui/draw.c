@@ -7,6 +7,7 @@
 #include <string.h>
 #include <wchar.h>
 
+#include "../plot/palette.h"
 #include "app.h"
 
 static attr_t role_attr[TR_NROLES];
@@ -60,13 +61,46 @@ static const attr_t mono[TR_NROLES] = {
 	[TR_AXIS] = A_DIM,
 };
 
+/* On a 256-colour terminal the roles take the charts' palette (plot/palette.h), so the screen,
+ * the PNG and the PDF share one set of colours; with 8 colours, the nearest basic ones above. */
+static const short pal256[TR_NROLES][2] = {
+	[TR_PLAIN] = { -1, -1 },
+	[TR_TITLE] = { 231, PAL_CURVE + 1000 },
+	[TR_HEAD] = { PAL_CURVE + 1000, -1 },
+	[TR_SEL] = { -1, -1 },
+	[TR_DIM] = { -1, -1 },
+	[TR_ERR] = { 231, PAL_MARK + 1000 },
+	[TR_OK] = { PAL_CURVE + 1000, -1 },
+	[TR_KEY] = { PAL_MARK + 1000, -1 },
+	[TR_WARN] = { PAL_MARK + 1000, -1 },
+	[TR_NONE] = { -1, -1 },
+	[TR_CLIMB] = { PAL_CURVE + 1000, -1 },
+	[TR_PLATEAU] = { 137, -1 },        /* the plateau shading, darkened to read as text */
+	[TR_BEYOND] = { PAL_MUTED + 1000, -1 },
+	[TR_ATHB] = { PAL_BAND_ATH + 1000, -1 },
+	[TR_PI] = { PAL_BAND_GROUP + 1000, -1 },
+	[TR_CI] = { PAL_BAND_CI + 1000, -1 },
+	[TR_MEAN] = { PAL_CURVE + 1000, -1 },
+	[TR_MARK] = { PAL_MARK + 1000, -1 },
+	[TR_CURSOR] = { -1, -1 },
+	[TR_AXIS] = { -1, -1 },
+};
+
+/* A palette colour (entries above 1000 name one) as an xterm index; others pass through. */
+static short xterm_of(short c)
+{
+	return c >= 1000 ? sd_palette[c - 1000].xterm : c;
+}
+
 void tui_colors_init(struct tui_app *a)
 {
 	utf8 = a->unicode;
 	if (a->color && has_colors() && start_color() == OK) {
 		int dflt = use_default_colors() == OK;
+		int full = COLORS >= 256;
 		for (int r = 0; r < TR_NROLES; r++) {
-			short fg = scheme[r].fg, bg = scheme[r].bg;
+			short fg = full ? xterm_of(pal256[r][0]) : scheme[r].fg;
+			short bg = full ? xterm_of(pal256[r][1]) : scheme[r].bg;
 			if (!dflt) {
 				fg = fg < 0 ? COLOR_WHITE : fg;
 				bg = bg < 0 ? COLOR_BLACK : bg;
