@@ -208,10 +208,11 @@ int tui_putf(int y, int x, int w, enum tui_role r, const char *fmt, ...)
 void tui_fill(int y, int x, int w, enum tui_role r);
 /* Display width of a UTF-8 string (bytes count 1 each when the locale is not UTF-8). */
 int tui_width(const char *s);
-/* A horizontal gauge of w cells over [0, smax]: a bar to dose in role r, over a track that
- * marks the plateau and the end of the evidence. */
-void tui_gauge(struct tui_app *a, int y, int x, int w, double smax, double dose, double plateau,
-	       double dose_max, enum tui_role r);
+/* A dose placed on the curve: w cells over [0, smax], each as tall as the curve is there
+ * (lev[i], 0..7, rising and flattening as returns diminish); the climbed part in role r, the
+ * dose as a dot, the rest of the curve dim with the plateau and the evidence's end marked. */
+void tui_dose_strip(struct tui_app *a, int y, int x, int w, const unsigned char *lev,
+		    double smax, double dose, double plateau, double dose_max, enum tui_role r);
 /* The scale line above gauges: numbers, and the plateau and evidence-end marks. */
 void tui_gauge_scale(struct tui_app *a, int y, int x, int w, double smax, double plateau,
 		     double dose_max);

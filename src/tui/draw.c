@@ -243,42 +243,30 @@ static int cell_of(double v, double smax, int w)
 	return c < 0 ? 0 : c >= w ? w - 1 : c;
 }
 
-void tui_gauge(struct tui_app *a, int y, int x, int w, double smax, double dose, double plateau,
-	       double dose_max, enum tui_role r)
+void tui_dose_strip(struct tui_app *a, int y, int x, int w, const unsigned char *lev,
+		    double smax, double dose, double plateau, double dose_max, enum tui_role r)
 {
-	/* Eighths of a cell in a UTF-8 terminal, halves in ASCII. */
-	static const char *const part[] = { "", "\u258f", "\u258e", "\u258d", "\u258c", "\u258b",
-					    "\u258a", "\u2589" };
-	long len = lround(dose / smax * w * 8);
+	/* The curve's height in eighths of a cell (UTF-8), or eight ASCII steps. */
+	static const char *const blk[] = { "\u2581", "\u2582", "\u2583", "\u2584", "\u2585",
+					   "\u2586", "\u2587", "\u2588" };
+	static const char *const asc[] = { "_", ".", "-", "~", "=", "+", "*", "#" };
+	int dc = dose > 0 ? cell_of(dose, smax, w) : -1;
 	int pc = cell_of(plateau, smax, w), ec = cell_of(dose_max, smax, w);
 
 	if (w <= 0 || y >= LINES)
 		return;
-	if (len > 8L * w)
-		len = 8L * w;
 	for (int i = 0; i < w && x + i < COLS; i++) {
-		long fill = len - 8L * i;
-		const char *g;
-		enum tui_role gr = r;
-		if (fill >= 8)
-			g = a->unicode ? "\u2588" : "=";
-		else if (fill > 0 && (a->unicode || fill >= 4))
-			g = a->unicode ? part[fill] : "-";
-		else {
-			/* Empty track (in ASCII also a cell less than half filled). */
-			gr = TR_AXIS;
-			if (i == ec)
-				g = a->unicode ? "\u2503" : "|";
-			else if (i == pc)
-				g = a->unicode ? "\u250a" : ":";
-			else if (i > ec)
-				g = " ";
-			else
-				g = a->unicode ? "\u00b7" : ".";
-			if (i == ec)
-				gr = TR_BEYOND;
-			else if (i == pc)
-				gr = TR_PLATEAU;
+		const char *g = a->unicode ? blk[lev[i] & 7] : asc[lev[i] & 7];
+		enum tui_role gr = i < dc ? r : TR_AXIS;
+		if (i == dc) {
+			g = a->unicode ? "\u25cf" : "@";
+			gr = TR_MARK;
+		} else if (i > dc && i == ec) {
+			g = a->unicode ? "\u2503" : "|";
+			gr = TR_BEYOND;
+		} else if (i > dc && i == pc) {
+			g = a->unicode ? "\u250a" : ":";
+			gr = TR_PLATEAU;
 		}
 		attrset(role_attr[gr]);
 		mvaddstr(y, x + i, g);
