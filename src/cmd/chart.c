@@ -81,9 +81,10 @@ static int exec_chart(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *
 	struct sd_audit_opts o = { ctx->opt.level, ctx->opt.max_rir, SD_SESSION_CAP };
 	struct sd_chart c = { CHART_CURVE, &ctx->profile, app_covars(ctx, 0), ctx->opt.level, NULL,
 			      NULL, NULL, NULL, NULL, NULL, 0, NULL, 0 };
-	struct chart_opts co = { NULL };
+	struct chart_opts co;
 	int rc = -1, loaded = 0, audited = 0, kind;
 
+	memset(&co, 0, sizeof co);
 	if ((argc = opt_parse("chart", chart_opts, OPT_N(chart_opts), &co, argc, argv, e)) < 0)
 		return -1;
 	if (argc > 1)

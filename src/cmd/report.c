@@ -203,11 +203,13 @@ out:
 
 static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	struct report_opts o = { NULL };
-	struct job j = { NULL };
+	struct report_opts o;
+	struct job j;
 	char today[DATE_LEN];
 	int rc = -1, stored;
 
+	memset(&o, 0, sizeof o);
+	memset(&j, 0, sizeof j);
 	if ((argc = opt_parse("report", report_opts, OPT_N(report_opts), &o, argc, argv, e)) < 0)
 		return -1;
 	if (!o.out)
