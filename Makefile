@@ -51,8 +51,11 @@ CFLAGS_ALL  = -std=c11 -D_GNU_SOURCE $(WARN) -fPIC -MMD -MP $(OPT) $(HARD_CFLAGS
 LDFLAGS_ALL = -pie -Wl,--as-needed $(HARD_LDFLAGS) $(LDFLAGS)
 LDLIBS_ALL  = $(PKG_LIBS) -lm $(LDLIBS)
 
-# src/plot/chart.c is the chart module (plot/chart_mod.h), loaded only when a chart is drawn.
-MODSRC = src/plot/chart.c
+# src/plot/chart.c and the drawing files beside it are the chart module (plot/chart_mod.h),
+# loaded only when a chart is drawn; chart_fmt.c is in both (names checked before loading).
+MODSRC = src/plot/chart.c src/plot/chart_draw.c src/plot/chart_curve.c src/plot/chart_rows.c \
+         src/plot/chart_returns.c src/plot/chart_report.c
+MODOBJ = $(MODSRC:src/%.c=$(B)/obj/%.o)
 SRC   := $(filter-out $(MODSRC),$(sort $(wildcard src/core/*.c src/app/*.c src/io/*.c src/store/*.c src/cmd/*.c \
          src/tui/*.c src/plot/*.c)))
 OBJ   := $(SRC:src/%.c=$(B)/obj/%.o)
@@ -79,10 +82,11 @@ $(B)/setdose: $(B)/obj/main.o $(OBJ)
 	$(CC) $(OPT) $(SAN) $(LDFLAGS_ALL) -o $@ $^ $(LDLIBS_ALL)
 
 # The module carries its own copy of the core code it calls (from an archive, so only what it
-# uses); the executable exports nothing, so neither binds to the other's copy.
-$(MOD): $(B)/obj/plot/chart.o $(B)/obj/plot/chart_fmt.o $(B)/libcore.a
+# uses); the executable exports nothing, so neither binds to the other's copy. -Bsymbolic binds
+# the module's own functions to themselves, never to a same-named one loaded before (ncurses).
+$(MOD): $(MODOBJ) $(B)/obj/plot/chart_fmt.o $(B)/libcore.a
 	@mkdir -p $(dir $@)
-	$(CC) $(OPT) $(SAN) -shared -Wl,--as-needed $(HARD_LDFLAGS) $(LDFLAGS) -Wl,--no-undefined -o $@ $^ $(MOD_LIBS) $(PKG_LIBS) -lm
+	$(CC) $(OPT) $(SAN) -shared -Wl,--as-needed -Wl,-Bsymbolic $(HARD_LDFLAGS) $(LDFLAGS) -Wl,--no-undefined -o $@ $^ $(MOD_LIBS) $(PKG_LIBS) -lm
 $(B)/libcore.a: $(COREOBJ)
 	rm -f $@ && ar rcs $@ $^
 

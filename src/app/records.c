@@ -5,6 +5,7 @@
 #include <stdio.h>
 #include <stdlib.h>
 #include <string.h>
+#include <strings.h>
 
 #include "../core/date.h"
 #include "../core/e1rm.h"
@@ -211,4 +212,57 @@ int app_test_add(struct sd_db *db, struct db_test *t, struct sd_err *e)
 	}
 	free(v);
 	return db_test_add(db, t, &t->id, e);
+}
+
+static int ends_with(const char *s, const char *suffix)
+{
+	size_t n = strlen(s), k = strlen(suffix);
+	return n >= k && !strcasecmp(s + n - k, suffix);
+}
+
+/* The stored name: the option, else the file's [program] name, else the file name without its
+ * folder and extension. */
+static void pick_name(const char *opt, const struct sd_program *p, const char *path, char *buf,
+		      size_t n)
+{
+	const char *base = strrchr(path, '/');
+	char *dot;
+
+	if (opt && *opt) {
+		snprintf(buf, n, "%s", opt);
+		return;
+	}
+	if (p->named) {
+		snprintf(buf, n, "%s", p->name);
+		return;
+	}
+	snprintf(buf, n, "%s", base ? base + 1 : path);
+	dot = strrchr(buf, '.');
+	if (dot && dot != buf)
+		*dot = '\0';
+}
+
+int app_program_add_file(const struct sd_ctx *ctx, const char *path, const char *name_opt,
+			 struct sd_program *prog, char *name, size_t n, struct sd_err *e)
+{
+	char *text = NULL;
+	size_t len = 0;
+	int is_csv = ends_with(path, ".csv"), rc = -1;
+
+	memset(prog, 0, sizeof *prog);
+	if (program_slurp(path, &text, &len, e))
+		return -1;
+	if (program_parse(path, text, len, is_csv, &ctx->lib, prog, e))
+		goto done;
+	pick_name(name_opt, prog, path, name, n);
+	if (app_name("program", name, DB_PROGNAME_MAX, e))
+		goto done;
+	if (db_program_add(ctx->db, name, text, len, is_csv, NULL, e))
+		goto done;
+	rc = 0;
+done:
+	if (rc)
+		prog_free(prog);
+	free(text);
+	return rc;
 }

@@ -5,6 +5,7 @@
 #ifndef SD_APP_RECORDS_H
 #define SD_APP_RECORDS_H
 
+#include "../core/program.h"
 #include "../store/db.h"
 #include "ctx.h"
 
@@ -12,6 +13,12 @@
  * stored names ("did you mean ...?"). */
 int app_athlete_get(struct sd_db *db, const char *name, struct db_athlete *out, struct sd_err *e);
 int app_program_get(struct sd_db *db, const char *name, struct db_program *out, struct sd_err *e);
+/* Reads the program file at path, checks it against the exercise library and stores it as a
+ * template (inside the caller's transaction) under name_opt, else the file's [program] name,
+ * else the file's name without folder and extension. prog gets the parsed program (free it
+ * with prog_free; left empty on failure), name (n bytes) the stored name. */
+int app_program_add_file(const struct sd_ctx *ctx, const char *path, const char *name_opt,
+			 struct sd_program *prog, char *name, size_t n, struct sd_err *e);
 /* The library's canonical name of LIFT into buf, or an error suggesting the closest names. */
 int app_lift(const struct sd_library *lib, const char *lift, char *buf, size_t n, struct sd_err *e);
 

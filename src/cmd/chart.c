@@ -1,18 +1,19 @@
-/* chart and report: the curve as a picture, and a printable per-program report (cairo). */
+/* chart: the curve, the per-muscle chart, the compare chart or the returns heat map, as PNG,
+ * SVG or PDF (cairo, in the chart module). */
 #include <stddef.h>
 #include <stdlib.h>
 #include <string.h>
 
+#include "../app/progarg.h"
 #include "../core/audit.h"
-#include "../io/program_io.h"
 #include "../io/safefile.h"
-#include "../plot/chart.h"
+#include "chartcmd.h"
 #include "cmd.h"
 
-extern const struct sd_cmd cmd_chart, cmd_report;
+extern const struct sd_cmd cmd_chart;
 
 struct chart_opts {
-	const char *out, *program;
+	const char *out, *program, *against, *kind;
 	int force;
 };
 
@@ -20,150 +21,132 @@ struct chart_opts {
 static const struct sd_optdef chart_opts[] = {
 	{ "out", OPT_STR, 0, 0, CO(out), NULL, "FILE",
 	  "the picture; its extension (.png, .svg, .pdf) picks the format" },
-	{ "program", OPT_STR, 0, 0, CO(program), NULL, "FILE",
-	  "mark the program's muscles at their weekly doses" },
+	{ "kind", OPT_STR, 0, 0, CO(kind), NULL, "KIND",
+	  "curve (default), muscles, compare or returns" },
+	{ "program", OPT_STR, 0, 0, CO(program), NULL, "PROGRAM",
+	  "a program file or stored template: its muscles at their weekly doses" },
+	{ "against", OPT_STR, 0, 0, CO(against), NULL, "PROGRAM",
+	  "compare: the program (B) set against --program (A)" },
 	{ "force", OPT_FLAG, 0, 0, CO(force), NULL, NULL, "replace an existing FILE" },
-};
-static const struct sd_optdef report_opts[] = {
-	{ "out", OPT_STR, 0, 0, CO(out), NULL, "FILE.pdf", "the report; one A4 page per program" },
-	{ "force", OPT_FLAG, 0, 0, CO(force), NULL, NULL, "replace an existing FILE.pdf" },
 };
 #undef CO
 
-/* The options of chart or report; the arguments are left in argv[1..], *argc their count + 1. */
-static int parse(int *argc, char **argv, struct chart_opts *o, const struct sd_cmd *self,
-		 struct sd_err *e)
+struct chart_layout *chartcmd_layout(void)
 {
-	memset(o, 0, sizeof *o);
-	if ((*argc = opt_parse(self->name, self->opts, self->nopts, o, *argc, argv, e)) < 0)
-		return -1;
-	if (!o->out)
-		return sd_usage(e, "%s needs --out FILE (usage: setdose %s)", self->name, self->usage);
-	return 0;
+	const char *on = getenv("SETDOSE_TEST_LAYOUT");
+	struct chart_layout *l;
+	if (!on || !*on || !(l = calloc(1, sizeof *l)))
+		return NULL;
+	l->cap = 20000;
+	if (!(l->box = calloc((size_t)l->cap, sizeof *l->box))) {
+		free(l);
+		return NULL;
+	}
+	return l;
 }
 
-/* Draws into a temporary file put in place only once complete (io/safefile.h). */
-static int draw_to(const char *out, int force, const struct sd_chart *c,
-		   const struct sd_audit_info *info, int n, struct sd_err *e)
+void chartcmd_layout_done(struct chart_layout *l, int rc)
+{
+	static const char *const kinds[BOX_NKINDS] = { "label", "mark", "obstacle", "text", "content" };
+	if (!l)
+		return;
+	if (!rc) {
+		fprintf(stderr, "layout %.2f %.2f %d %d\n", l->page_w, l->page_h, l->pages, l->dropped);
+		for (int i = 0; i < l->n; i++) {
+			const struct chart_box *b = &l->box[i];
+			fprintf(stderr, "box %d %d %s %.2f %.2f %.2f %.2f %.2f %s\n", b->page, b->group,
+				kinds[b->kind], b->x, b->y, b->w, b->h, b->size, b->text);
+		}
+	}
+	free(l->box);
+	free(l);
+}
+
+int chartcmd_draw(const char *out, int force, const struct sd_chart *c, const struct sd_report *r,
+		  struct sd_err *e)
 {
 	struct sf_file sf;
 
 	if (sf_open(&sf, out, force, e))
 		return -1;
 	return sf_finish(&sf, c ? chart_write(out, c, sf_sink, &sf, e) :
-			 report_write(out, info, n, sf_sink, &sf, e), e);
+			 report_write(out, r, sf_sink, &sf, e), e);
 }
 
 static int exec_chart(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
 {
-	const char *out = NULL, *program = NULL;
-	struct sd_program prog;
-	struct sd_audit au;
+	struct progarg pa = { NULL };
+	struct sd_program prog[2];
+	struct sd_audit au[2];
 	struct sd_audit_opts o = { ctx->opt.level, ctx->opt.max_rir, SD_SESSION_CAP };
-	struct sd_chart c = { &ctx->profile, app_covars(ctx, 0), ctx->opt.level, NULL, NULL };
+	struct sd_chart c = { CHART_CURVE, &ctx->profile, app_covars(ctx, 0), ctx->opt.level, NULL,
+			      NULL, NULL, NULL, NULL, NULL, 0, NULL, 0 };
 	struct chart_opts co;
-	int rc, force;
+	int rc = -1, loaded = 0, audited = 0, kind;
 
-	if (parse(&argc, argv, &co, &cmd_chart, e))
+	memset(&co, 0, sizeof co);
+	if ((argc = opt_parse("chart", chart_opts, OPT_N(chart_opts), &co, argc, argv, e)) < 0)
 		return -1;
 	if (argc > 1)
 		return sd_usage(e, "chart takes no arguments besides options, got '%s'", argv[1]);
-	out = co.out;
-	program = co.program;
-	force = co.force;
-	if (!chart_format_ok(out))
-		return sd_usage(e, "cannot tell the chart format of '%s': name it .png, .svg or .pdf", out);
-	if (!program) {
-		if (draw_to(out, force, &c, NULL, 0, e))
-			return -1;
-		fprintf(ctx->out, "wrote %s\n", out);
-		return 0;
-	}
-	if (program_load(program, &ctx->lib, &prog, e))
-		return -1;
-	c.cov = app_covars(ctx, prog.weeks);
-	rc = audit_run(&prog, &ctx->lib, &ctx->profile, &c.cov, &o, &au, e);
-	if (!rc) {
-		c.audit = &au;
-		c.title = prog.name;
-		rc = draw_to(out, force, &c, NULL, 0, e);
-		audit_free(&au);
-	}
-	prog_free(&prog);
-	if (!rc)
-		fprintf(ctx->out, "wrote %s\n", out);
-	return rc;
-}
+	if (!co.out)
+		return sd_usage(e, "chart needs --out FILE (usage: setdose %s)", cmd_chart.usage);
+	if (!chart_format_ok(co.out))
+		return sd_usage(e, "cannot tell the chart format of '%s': name it .png, .svg or .pdf",
+				co.out);
+	if ((kind = co.kind ? chart_kind_find(co.kind) : CHART_CURVE) < 0)
+		return sd_usage(e, "unknown chart kind '%s': use curve, muscles, compare or returns",
+				co.kind);
+	c.kind = (enum chart_kind)kind;
+	if ((c.kind == CHART_MUSCLES || c.kind == CHART_COMPARE) && !co.program)
+		return sd_usage(e, "chart --kind %s needs --program PROGRAM", co.kind);
+	if (c.kind == CHART_COMPARE && !co.against)
+		return sd_usage(e, "chart --kind compare needs --against PROGRAM (B, set against A)");
+	if (co.against && c.kind != CHART_COMPARE)
+		return sd_usage(e, "--against belongs to chart --kind compare");
+	if (co.program && c.kind == CHART_RETURNS)
+		return sd_usage(e, "the returns chart is the curve's alone: it takes no --program");
 
-static int exec_report(struct sd_ctx *ctx, int argc, char **argv, struct sd_err *e)
-{
-	const char *out = NULL;
-	struct sd_audit_opts o = { ctx->opt.level, ctx->opt.max_rir, SD_SESSION_CAP };
-	struct sd_program *progs;
-	struct sd_audit *audits;
-	struct sd_audit_info *info;
-	struct chart_opts co;
-	int n, done = 0, rc = -1, force;
-
-	if (parse(&argc, argv, &co, &cmd_report, e))
-		return -1;
-	out = co.out;
-	force = co.force;
-	n = argc - 1;
-	if (n < 1)
-		return sd_usage(e, "report needs at least one PROGRAM file (usage: setdose %s)",
-				cmd_report.usage);
-	if (n > 200)
-		return sd_usage(e, "report takes at most 200 programs, got %d", n);
-	progs = calloc((size_t)n, sizeof *progs);
-	audits = calloc((size_t)n, sizeof *audits);
-	info = calloc((size_t)n, sizeof *info);
-	if (!progs || !audits || !info) {
-		sd_fail(e, "out of memory");
-		goto out;
-	}
-	for (; done < n; done++) {
-		const char *path = argv[1 + done];
-		if (program_load(path, &ctx->lib, &progs[done], e))
+	const char *args[2] = { co.program, co.against };
+	for (; loaded < 2 && args[loaded]; loaded++)
+		if (progarg_load(ctx, &pa, args[loaded], &prog[loaded], e))
 			goto out;
-		struct sd_covars cov = app_covars(ctx, progs[done].weeks);
-		if (audit_run(&progs[done], &ctx->lib, &ctx->profile, &cov, &o, &audits[done], e)) {
-			prog_free(&progs[done]);
+	if (loaded)
+		c.cov = app_covars(ctx, prog[0].weeks);
+	/* Both programs of a compare are audited in one athlete context, as compare does. */
+	for (; audited < loaded; audited++)
+		if (audit_run(&prog[audited], &ctx->lib, &ctx->profile, &c.cov, &o, &au[audited], e))
 			goto out;
-		}
-		info[done] = (struct sd_audit_info){ .label = path, .prog = &progs[done],
-						     .prof = &ctx->profile, .audit = &audits[done] };
+	if (loaded) {
+		c.audit = &au[0];
+		c.title = prog[0].name;
+		c.name_a = prog[0].name;
 	}
-	rc = draw_to(out, force, NULL, info, n, e);
+	if (loaded > 1) {
+		c.other = &au[1];
+		c.name_b = prog[1].name;
+	}
+	c.layout = chartcmd_layout();
+	rc = chartcmd_draw(co.out, co.force, &c, NULL, e);
+	chartcmd_layout_done(c.layout, rc);
 	if (!rc)
-		fprintf(ctx->out, "wrote %s (%d page%s)\n", out, n, n == 1 ? "" : "s");
+		fprintf(ctx->out, "wrote %s (%s chart)\n", co.out, chart_kind_name(c.kind));
 out:
-	for (int i = 0; i < done; i++) {
-		audit_free(&audits[i]);
-		prog_free(&progs[i]);
-	}
-	free(progs);
-	free(audits);
-	free(info);
+	for (int i = 0; i < audited; i++)
+		audit_free(&au[i]);
+	for (int i = 0; i < loaded; i++)
+		prog_free(&prog[i]);
+	progarg_close(&pa);
 	return rc;
 }
 
 const struct sd_cmd cmd_chart = {
 	.name = "chart",
-	.summary = "draw the curve (and a program's muscles) to PNG, SVG or PDF",
-	.usage = "chart --out FILE.png|svg|pdf [--program FILE] [--force]",
+	.summary = "draw the curve, a program's muscles, a comparison or the returns grid",
+	.usage = "chart --out FILE.png|svg|pdf [--kind curve|muscles|compare|returns] "
+		 "[--program PROGRAM [--against PROGRAM]] [--force]",
 	.flags = CMD_PROFILE | CMD_LIBRARY,
 	.exec = exec_chart,
 	.opts = chart_opts,
 	.nopts = OPT_N(chart_opts),
-};
-
-const struct sd_cmd cmd_report = {
-	.name = "report",
-	.summary = "a printable PDF report: one page per program with table and chart",
-	.usage = "report --out FILE.pdf [--force] PROGRAM...",
-	.flags = CMD_PROFILE | CMD_LIBRARY,
-	.exec = exec_report,
-	.opts = report_opts,
-	.nopts = OPT_N(report_opts),
 };

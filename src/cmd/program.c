@@ -15,65 +15,24 @@ static int usage(struct sd_err *e)
 	return sd_usage(e, "usage: setdose %s", cmd_program.usage);
 }
 
-static int ends_with(const char *s, const char *suffix)
-{
-	size_t n = strlen(s), k = strlen(suffix);
-	return n >= k && !strcasecmp(s + n - k, suffix);
-}
-
-/* The stored name: --name, else the file's [program] name, else the file name without its
- * folder and extension. */
-static void pick_name(const char *opt, const struct sd_program *p, const char *path, char *buf,
-		      size_t n)
-{
-	const char *base = strrchr(path, '/');
-	char *dot;
-
-	if (opt) {
-		snprintf(buf, n, "%s", opt);
-		return;
-	}
-	if (p->named) {
-		snprintf(buf, n, "%s", p->name);
-		return;
-	}
-	snprintf(buf, n, "%s", base ? base + 1 : path);
-	dot = strrchr(buf, '.');
-	if (dot && dot != buf)
-		*dot = '\0';
-}
-
 /* Validates one file and stores it, inside the caller's transaction; `said` gets the line to
  * print once the transaction has committed. */
 static int add_one(struct sd_ctx *ctx, const char *path, const char *name_opt, char *said,
 		   size_t n, struct sd_err *e)
 {
 	struct sd_program prog;
-	char *text = NULL, name[DB_PROGNAME_MAX + 64];
-	size_t len = 0;
-	int is_csv = ends_with(path, ".csv"), rc = -1;
+	char name[DB_PROGNAME_MAX + 64];
 
-	memset(&prog, 0, sizeof prog);
-	if (program_slurp(path, &text, &len, e))
+	if (app_program_add_file(ctx, path, name_opt, &prog, name, sizeof name, e))
 		return -1;
-	if (program_parse(path, text, len, is_csv, &ctx->lib, &prog, e))
-		goto done;
-	pick_name(name_opt, &prog, path, name, sizeof name);
-	if (app_name("program", name, DB_PROGNAME_MAX, e))
-		goto done;
-	if (db_program_add(ctx->db, name, text, len, is_csv, NULL, e))
-		goto done;
 	snprintf(said, n, "added program '%s' from %s (%d day%s, %d exercise entr%s)\n", name,
 		 path, prog.ndays, prog.ndays == 1 ? "" : "s", prog.nentries,
 		 prog.nentries == 1 ? "y" : "ies");
 	/* How it was read (an old-style @N, a repeated exercise) matters before it is used. */
 	for (int i = 0; i < prog.nnotes; i++)
 		fprintf(stderr, "setdose: warning: '%s' %s\n", path, prog.notes[i].text);
-	rc = 0;
-done:
 	prog_free(&prog);
-	free(text);
-	return rc;
+	return 0;
 }
 
 static const struct sd_optdef add_opts[] = {

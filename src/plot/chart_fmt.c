@@ -1,5 +1,5 @@
-/* File-name extensions of the chart formats: in the main binary, so a wrong name is refused
- * before the chart module is loaded. */
+/* File-name extensions of the chart formats and the chart kinds' names: in the main binary, so
+ * a wrong name is refused before the chart module is loaded (the module has its own copy). */
 #include "chart_mod.h"
 
 #include <string.h>
@@ -22,4 +22,19 @@ enum chart_fmt chart_format(const char *path)
 int chart_format_ok(const char *path)
 {
 	return chart_format(path) != FMT_NONE;
+}
+
+static const char *const kind_names[CHART_NKINDS] = { "curve", "muscles", "compare", "returns" };
+
+int chart_kind_find(const char *name)
+{
+	for (int k = 0; k < CHART_NKINDS; k++)
+		if (!strcasecmp(name, kind_names[k]))
+			return k;
+	return -1;
+}
+
+const char *chart_kind_name(enum chart_kind k)
+{
+	return (unsigned)k < CHART_NKINDS ? kind_names[k] : "?";
 }

@@ -65,9 +65,9 @@ int chart_write(const char *name, const struct sd_chart *c, chart_sink_fn sink, 
 	return a ? a->chart_write(name, c, sink, closure, e) : -1;
 }
 
-int report_write(const char *name, const struct sd_audit_info *in, int n, chart_sink_fn sink,
-		 void *closure, struct sd_err *e)
+int report_write(const char *name, const struct sd_report *r, chart_sink_fn sink, void *closure,
+		 struct sd_err *e)
 {
 	const struct sd_chart_api *a = load(e);
-	return a ? a->report_write(name, in, n, sink, closure, e) : -1;
+	return a ? a->report_write(name, r, sink, closure, e) : -1;
 }

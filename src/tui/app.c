@@ -22,7 +22,7 @@ const struct tui_bind tui_global_keys[] = {
 	{ { '?', KEY_F(1) }, G_HELP, "? F1", "this key card (Esc closes it)" },
 	{ { 27, KEY_BACKSPACE, 127 }, G_BACK, "Esc Backspace", "back to the view before; Esc on the "
 	  "roster leaves" },
-	{ { KEY_F(10) }, G_QUIT, "F10", "leave setdose (Ctrl-C too)" },
+	{ { 'q', KEY_F(10) }, G_QUIT, "q F10", "leave setdose (Ctrl-C too); in a text field q types" },
 	{ { 12 }, G_REDRAW, "Ctrl-L", "reload what other programs changed; repaint" },
 	{ { 0 }, G_MOVE, "Up Down", "move in lists; PgUp PgDn Home End go further" },
 	{ { 0 }, 0, NULL, NULL },
@@ -188,7 +188,7 @@ static void draw_title(struct tui_app *a)
 static void draw_status(struct tui_app *a)
 {
 	int y = LINES - 1, n;
-	const char *hint = "? keys  F10 leave";
+	const char *hint = "? keys  q leave";
 	int hw = (int)strlen(hint) + 1;
 	enum tui_role r = a->status_err ? TR_ERR : TR_OK;
 
@@ -258,18 +258,28 @@ static void help_key(struct tui_app *a, int ch)
 		break;
 	case 27:
 	case '?':
-	case 'q':
 	case '\n':
 	case KEY_ENTER:
 	case KEY_F(1):
 		tui_overlay_close(&a->st);
 		break;
 	case KEY_F(10):
+	case 'q':
 		a->quit = 1;
 		break;
 	default:
 		break;
 	}
+}
+
+/* A key nothing here acts on says so, rather than being ignored in silence. */
+static void say_unbound(struct tui_app *a, int ch)
+{
+	const char *name = keyname(ch);
+	if (ch == ERR || ch == KEY_RESIZE || ch == KEY_MOUSE)
+		return;
+	tui_say(a, 1, "%s does nothing in the %s view; ? lists its keys", name ? name : "that key",
+		tui_screen_of(tui_nav_top(&a->st.nav))->name);
 }
 
 static void handle_key(struct tui_app *a, int ch)
@@ -309,6 +319,7 @@ static void handle_key(struct tui_app *a, int ch)
 			a->quit = 1;
 		break;
 	default:
+		say_unbound(a, ch);
 		break;
 	}
 }

@@ -107,8 +107,8 @@ struct tui_logview {
 /* Forms and confirmations: what saving or a yes does. */
 enum {
 	TUI_FORM_ATHLETE_NEW = 1, TUI_FORM_ATHLETE_EDIT, TUI_FORM_BLOCK, TUI_FORM_TEST,
-	TUI_FORM_SAVE_TEMPLATE,
-	TUI_ASK_REMOVE_ATHLETE, TUI_ASK_END_BLOCK, TUI_ASK_EDIT_AGAIN
+	TUI_FORM_SAVE_TEMPLATE, TUI_FORM_END_BLOCK, TUI_FORM_ADD_TEMPLATE,
+	TUI_ASK_REMOVE_ATHLETE, TUI_ASK_EDIT_AGAIN
 };
 
 struct tui_app {
@@ -140,7 +140,7 @@ struct tui_app {
 
 	struct tui_subject a, b;         /* dose and curve views use a; compare uses a and b */
 	long long remove_id;             /* athlete a confirmed removal applies to */
-	long long end_block;             /* block a confirmed end applies to */
+	long long end_block;             /* block the finish form ends */
 
 	char *edit_text;                 /* a template being edited, kept across retries */
 	size_t edit_len;
@@ -219,6 +219,10 @@ void tui_data_free(struct tui_app *a);
 void tui_form_open_athlete(struct tui_app *a, const struct db_athlete *edit);
 void tui_form_open_block(struct tui_app *a, long long athlete_id);
 void tui_form_open_test(struct tui_app *a);
+/* Finishing block b (of the athlete page): the end date, today unless changed. */
+void tui_form_open_end(struct tui_app *a, const struct db_block *b);
+/* Storing a template from a program file: its path and, optionally, a name. */
+void tui_form_open_add_template(struct tui_app *a);
 /* Handles a key while a form or confirmation is open. */
 void tui_form_key(struct tui_app *a, int ch);
 void tui_confirm_key(struct tui_app *a, int ch);
@@ -246,10 +250,11 @@ int tui_wrapped_lines(int w, int indent, const char *text);
 void tui_fill(int y, int x, int w, enum tui_role r);
 /* Display width of a UTF-8 string (bytes count 1 each when the locale is not UTF-8). */
 int tui_width(const char *s);
-/* A horizontal gauge of w cells over [0, smax]: a bar to dose in role r, over a track that
- * marks the plateau and the end of the evidence. */
-void tui_gauge(struct tui_app *a, int y, int x, int w, double smax, double dose, double plateau,
-	       double dose_max, enum tui_role r);
+/* A dose placed on the curve: w cells over [0, smax], each as tall as the curve is there
+ * (lev[i], 0..7, rising and flattening as returns diminish); the climbed part in role r, the
+ * dose as a dot, the rest of the curve dim with the plateau and the evidence's end marked. */
+void tui_dose_strip(struct tui_app *a, int y, int x, int w, const unsigned char *lev,
+		    double smax, double dose, double plateau, double dose_max, enum tui_role r);
 /* The scale line above gauges: numbers, and the plateau and evidence-end marks. */
 void tui_gauge_scale(struct tui_app *a, int y, int x, int w, double smax, double plateau,
 		     double dose_max);

@@ -8,6 +8,7 @@
 #include <wchar.h>
 
 #include "../io/wrap.h"
+#include "../plot/palette.h"
 #include "app.h"
 
 static attr_t role_attr[TR_NROLES];
@@ -61,13 +62,46 @@ static const attr_t mono[TR_NROLES] = {
 	[TR_AXIS] = A_DIM,
 };
 
+/* On a 256-colour terminal the roles take the charts' palette (plot/palette.h), so the screen,
+ * the PNG and the PDF share one set of colours; with 8 colours, the nearest basic ones above. */
+static const short pal256[TR_NROLES][2] = {
+	[TR_PLAIN] = { -1, -1 },
+	[TR_TITLE] = { 231, PAL_CURVE + 1000 },
+	[TR_HEAD] = { PAL_CURVE + 1000, -1 },
+	[TR_SEL] = { -1, -1 },
+	[TR_DIM] = { -1, -1 },
+	[TR_ERR] = { 231, PAL_MARK + 1000 },
+	[TR_OK] = { PAL_CURVE + 1000, -1 },
+	[TR_KEY] = { PAL_MARK + 1000, -1 },
+	[TR_WARN] = { PAL_MARK + 1000, -1 },
+	[TR_NONE] = { -1, -1 },
+	[TR_CLIMB] = { PAL_CURVE + 1000, -1 },
+	[TR_PLATEAU] = { 137, -1 },        /* the plateau shading, darkened to read as text */
+	[TR_BEYOND] = { PAL_MUTED + 1000, -1 },
+	[TR_ATHB] = { PAL_BAND_ATH + 1000, -1 },
+	[TR_PI] = { PAL_BAND_GROUP + 1000, -1 },
+	[TR_CI] = { PAL_BAND_CI + 1000, -1 },
+	[TR_MEAN] = { PAL_CURVE + 1000, -1 },
+	[TR_MARK] = { PAL_MARK + 1000, -1 },
+	[TR_CURSOR] = { -1, -1 },
+	[TR_AXIS] = { -1, -1 },
+};
+
+/* A palette colour (entries above 1000 name one) as an xterm index; others pass through. */
+static short xterm_of(short c)
+{
+	return c >= 1000 ? sd_palette[c - 1000].xterm : c;
+}
+
 void tui_colors_init(struct tui_app *a)
 {
 	utf8 = a->unicode;
 	if (a->color && has_colors() && start_color() == OK) {
 		int dflt = use_default_colors() == OK;
+		int full = COLORS >= 256;
 		for (int r = 0; r < TR_NROLES; r++) {
-			short fg = scheme[r].fg, bg = scheme[r].bg;
+			short fg = full ? xterm_of(pal256[r][0]) : scheme[r].fg;
+			short bg = full ? xterm_of(pal256[r][1]) : scheme[r].bg;
 			if (!dflt) {
 				fg = fg < 0 ? COLOR_WHITE : fg;
 				bg = bg < 0 ? COLOR_BLACK : bg;
@@ -249,42 +283,30 @@ static int cell_of(double v, double smax, int w)
 	return c < 0 ? 0 : c >= w ? w - 1 : c;
 }
 
-void tui_gauge(struct tui_app *a, int y, int x, int w, double smax, double dose, double plateau,
-	       double dose_max, enum tui_role r)
+void tui_dose_strip(struct tui_app *a, int y, int x, int w, const unsigned char *lev,
+		    double smax, double dose, double plateau, double dose_max, enum tui_role r)
 {
-	/* Eighths of a cell in a UTF-8 terminal, halves in ASCII. */
-	static const char *const part[] = { "", "\u258f", "\u258e", "\u258d", "\u258c", "\u258b",
-					    "\u258a", "\u2589" };
-	long len = lround(dose / smax * w * 8);
+	/* The curve's height in eighths of a cell (UTF-8), or eight ASCII steps. */
+	static const char *const blk[] = { "\u2581", "\u2582", "\u2583", "\u2584", "\u2585",
+					   "\u2586", "\u2587", "\u2588" };
+	static const char *const asc[] = { "_", ".", "-", "~", "=", "+", "*", "#" };
+	int dc = dose > 0 ? cell_of(dose, smax, w) : -1;
 	int pc = cell_of(plateau, smax, w), ec = cell_of(dose_max, smax, w);
 
 	if (w <= 0 || y >= LINES)
 		return;
-	if (len > 8L * w)
-		len = 8L * w;
 	for (int i = 0; i < w && x + i < COLS; i++) {
-		long fill = len - 8L * i;
-		const char *g;
-		enum tui_role gr = r;
-		if (fill >= 8)
-			g = a->unicode ? "\u2588" : "=";
-		else if (fill > 0 && (a->unicode || fill >= 4))
-			g = a->unicode ? part[fill] : "-";
-		else {
-			/* Empty track (in ASCII also a cell less than half filled). */
-			gr = TR_AXIS;
-			if (i == ec)
-				g = a->unicode ? "\u2503" : "|";
-			else if (i == pc)
-				g = a->unicode ? "\u250a" : ":";
-			else if (i > ec)
-				g = " ";
-			else
-				g = a->unicode ? "\u00b7" : ".";
-			if (i == ec)
-				gr = TR_BEYOND;
-			else if (i == pc)
-				gr = TR_PLATEAU;
+		const char *g = a->unicode ? blk[lev[i] & 7] : asc[lev[i] & 7];
+		enum tui_role gr = i < dc ? r : TR_AXIS;
+		if (i == dc) {
+			g = a->unicode ? "\u25cf" : "@";
+			gr = TR_MARK;
+		} else if (i > dc && i == ec) {
+			g = a->unicode ? "\u2503" : "|";
+			gr = TR_BEYOND;
+		} else if (i > dc && i == pc) {
+			g = a->unicode ? "\u250a" : ":";
+			gr = TR_PLATEAU;
 		}
 		attrset(role_attr[gr]);
 		mvaddstr(y, x + i, g);

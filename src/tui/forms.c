@@ -51,6 +51,8 @@ enum { FA_NAME, FA_STATUS, FA_UNITS, FA_NOTES };
 enum { FB_ATHLETE, FB_TEMPLATE, FB_START, FB_WEEKS, FB_OVERLAP };
 enum { FT_LIFT, FT_DATE, FT_LOAD, FT_REPS, FT_FORMULA };
 enum { FS_NAME };
+enum { FE_DATE };
+enum { FP_PATH, FP_NAME };
 
 static long long form_athlete;   /* the athlete an edit or a test form is about */
 
@@ -108,6 +110,29 @@ void tui_form_open_test(struct tui_app *a)
 	tui_form_text(f, "reps", "1");
 	tui_form_choice(f, "1RM formula", formulas, E1RM_NFORMULAS, E1RM_DEFAULT);
 	form_athlete = a->cur.id;
+	tui_overlay_open(&a->st, TUI_OV_FORM);
+}
+
+void tui_form_open_end(struct tui_app *a, const struct db_block *b)
+{
+	struct tui_form *f = &a->st.form;
+	char today[DB_DATE_LEN], title[64];
+
+	tui_today(today);
+	snprintf(title, sizeof title, "finish block %lld (from %s)", b->id, b->start);
+	tui_form_reset(f, title, TUI_FORM_END_BLOCK);
+	tui_form_text(f, "end date", today);
+	a->end_block = b->id;
+	tui_overlay_open(&a->st, TUI_OV_FORM);
+}
+
+void tui_form_open_add_template(struct tui_app *a)
+{
+	struct tui_form *f = &a->st.form;
+
+	tui_form_reset(f, "add a template from a program file", TUI_FORM_ADD_TEMPLATE);
+	tui_form_text(f, "file", "");
+	tui_form_text(f, "name (optional)", "");
 	tui_overlay_open(&a->st, TUI_OV_FORM);
 }
 
@@ -240,6 +265,42 @@ static int save_test(struct tui_app *a, struct sd_err *e)
 
 static int save_template(struct tui_app *a, struct sd_err *e);
 
+/* The rule of `block end` (app_block_end): no date after today, none before the start. */
+static int save_end(struct tui_app *a, struct sd_err *e)
+{
+	char end[DB_DATE_LEN];
+
+	if (app_date("end date", tui_form_value(&a->st.form, FE_DATE), end, e))
+		return FE_DATE;
+	if (WRITE(a, e, app_block_end(a->ctx->db, a->end_block, end, end, e)))
+		return FE_DATE;
+	tui_reload(a);
+	tui_say(a, 0, "block %lld finished on %s", a->end_block, end);
+	return -1;
+}
+
+/* The rules of `program add` (app_program_add_file): the file reads with the exercise library
+ * and the name is free. */
+static int save_add_template(struct tui_app *a, struct sd_err *e)
+{
+	const struct tui_form *f = &a->st.form;
+	const char *path = tui_form_value(f, FP_PATH);
+	struct sd_program prog;
+	char name[DB_PROGNAME_MAX + 64];
+
+	if (!path[0])
+		return sd_fail(e, "give the program file's path"), FP_PATH;
+	if (WRITE(a, e, app_program_add_file(a->ctx, path, tui_form_value(f, FP_NAME), &prog, name,
+					     sizeof name, e)))
+		return strstr(e->msg, "name") && !strstr(e->msg, "cannot read") ? FP_NAME : FP_PATH;
+	tui_reload(a);
+	tui_say(a, 0, "added template '%s' (%d day%s, %d exercise entr%s)%s", name, prog.ndays,
+		prog.ndays == 1 ? "" : "s", prog.nentries, prog.nentries == 1 ? "y" : "ies",
+		prog.nnotes ? "; it has notes: open it to see them" : "");
+	prog_free(&prog);
+	return -1;
+}
+
 static void submit(struct tui_app *a)
 {
 	struct sd_err e;
@@ -259,6 +320,12 @@ static void submit(struct tui_app *a)
 		break;
 	case TUI_FORM_SAVE_TEMPLATE:
 		bad = save_template(a, &e);
+		break;
+	case TUI_FORM_END_BLOCK:
+		bad = save_end(a, &e);
+		break;
+	case TUI_FORM_ADD_TEMPLATE:
+		bad = save_add_template(a, &e);
 		break;
 	default:
 		break;
@@ -392,11 +459,13 @@ static void run_editor(struct tui_app *a);
 void tui_confirm_key(struct tui_app *a, int ch)
 {
 	struct sd_err e;
-	char today[DB_DATE_LEN];
 	int act = tui_action(tui_confirm_keys, ch), kind = a->st.confirm_kind;
 
-	if (act != Q_YES && act != Q_NO)
+	if (act != Q_YES && act != Q_NO) {
+		if (ch != ERR && ch != KEY_RESIZE)
+			tui_say(a, 1, "answer y (yes) or n (no); Esc is no");
 		return;
+	}
 	tui_overlay_close(&a->st);
 	sd_err_clear(&e);
 	if (act == Q_NO) {
@@ -417,15 +486,6 @@ void tui_confirm_key(struct tui_app *a, int ch)
 		}
 		tui_reload(a);
 		tui_say(a, 0, "removed the athlete with their blocks and tests");
-		break;
-	case TUI_ASK_END_BLOCK:
-		tui_today(today);
-		if (WRITE(a, &e, app_block_end(a->ctx->db, a->end_block, today, NULL, &e))) {
-			tui_say(a, 1, "%s; nothing changed", e.msg);
-			return;
-		}
-		tui_reload(a);
-		tui_say(a, 0, "block %lld finished on %s", a->end_block, today);
 		break;
 	case TUI_ASK_EDIT_AGAIN:
 		run_editor(a);

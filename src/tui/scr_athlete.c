@@ -27,7 +27,7 @@ static const struct tui_bind keys[] = {
 	{ { 'k' }, K_CURVE, "k", "the curve with the block's muscles on it" },
 	{ { 'b' }, K_BLOCK, "b", "start a block (athlete, template, start date)" },
 	{ { 't' }, K_TEST, "t", "log a strength test" },
-	{ { 'f' }, K_END_BLOCK, "f", "finish the selected open block today (asks first)" },
+	{ { 'f' }, K_END_BLOCK, "f", "finish the selected open block: asks the end date (today)" },
 	{ { '=' }, K_EDIT, "=", "edit the athlete: status, units, notes, name" },
 	{ { 0 }, 0, NULL, NULL },
 };
@@ -301,17 +301,16 @@ static void open_block(struct tui_app *a, int curve)
 static void ask_end(struct tui_app *a)
 {
 	int idx, kind = tui_athlete_row(a, a->st.athlete.sel, &idx);
-	char q[160], today[DB_DATE_LEN];
 
-	if (kind != TUI_ROW_BLOCK || a->blocks[idx].end[0]) {
-		tui_say(a, 1, "select an open block to finish it");
-		return;
-	}
-	tui_today(today);
-	snprintf(q, sizeof q, "finish block %lld ('%s') on %s?", a->blocks[idx].id,
-		 a->blocks[idx].program, today);
-	a->end_block = a->blocks[idx].id;
-	tui_confirm_open(&a->st, q, TUI_ASK_END_BLOCK);
+	if (kind == TUI_ROW_TEST)
+		tui_say(a, 1, "f finishes a block; this row is a strength test: select an open block");
+	else if (kind != TUI_ROW_BLOCK)
+		tui_say(a, 1, "f finishes a block; %s", a->nblocks ? "select an open block" :
+			"this athlete has no blocks yet (b starts one)");
+	else if (a->blocks[idx].end[0])
+		tui_say(a, 1, "block %lld already finished on %s", a->blocks[idx].id, a->blocks[idx].end);
+	else
+		tui_form_open_end(a, &a->blocks[idx]);
 }
 
 static int key(struct tui_app *a, int ch)

@@ -2,6 +2,7 @@
  * difference B - A of the predicted gains, its interval and the decision against the smallest
  * worthwhile change all come from core/compare.h (cmp_muscle), as in the compare command. */
 #include <curses.h>
+#include <stdlib.h>
 #include <math.h>
 #include <stdio.h>
 #include <string.h>
@@ -35,16 +36,22 @@ static void init(struct tui_app *a)
 	tui_list_reset(&a->st.pairs, SD_NMUSCLES);
 }
 
-/* The difference in sets as a bar from a centre line: right when B has more. */
-static void diff_gauge(struct tui_app *a, int y, int x, int w, double diff, double span)
+/* The difference in predicted gain as an arrow from a centre line: right when B gains more,
+ * its length proportional to the difference (span is the largest one shown), the +-SWC region
+ * dotted on the track. */
+static void diff_gauge(struct tui_app *a, int y, int x, int w, double diff, double span, double swc)
 {
 	int half = w / 2, n = (int)lround(fabs(diff) / span * half);
+	int sw = (int)lround(swc / span * half);
 
 	if (n > half)
 		n = half;
-	attrset(tui_attr(TR_AXIS));
-	for (int i = 0; i < w; i++)
-		mvaddstr(y, x + i, i == half ? (a->unicode ? "\u2502" : "|") : " ");
+	for (int i = 0; i < w; i++) {
+		int off = i - half;
+		attrset(tui_attr(off == 0 ? TR_AXIS : abs(off) <= sw ? TR_DIM : TR_AXIS));
+		mvaddstr(y, x + i, off == 0 ? (a->unicode ? "\u2502" : "|") :
+			 abs(off) <= sw ? (a->unicode ? "\u00b7" : ".") : " ");
+	}
 	attrset(tui_attr(diff > 0 ? TR_CI : TR_WARN));
 	for (int i = 1; i <= n; i++)
 		mvaddstr(y, diff > 0 ? x + half + i : x + half - i,
@@ -74,7 +81,7 @@ static void draw(struct tui_app *a)
 {
 	const struct sd_profile *p = &a->ctx->profile;
 	int top, rows, gx = 26, gw, lvl = (int)lround(a->ctx->opt.level * 100), cl, b1, b2;
-	double span = 5;
+	double span = curve_pct(p->swc) * 1.5, swc = curve_pct(p->swc);
 	struct cmp_diff pr[SD_NMUSCLES];
 	char ctx[160], head[400], l1[300], l2[400];
 
@@ -87,18 +94,19 @@ static void draw(struct tui_app *a)
 	tui_putf(1, COLS / 2, COLS - COLS / 2 - 1, TR_PLAIN, "%d hard sets a week", a->a.audit.vol.hard_sets);
 	tui_putf(2, COLS / 2, COLS - COLS / 2 - 1, TR_PLAIN, "%d hard sets a week", a->b.audit.vol.hard_sets);
 	tui_context_text(a, ctx, sizeof ctx);
-	snprintf(head, sizeof head, "%s; diff: B's predicted 1RM over A's, %d%% CI; decision: the "
-		 "%.0f%% interval against +/- the SWC %.1f%%", ctx, lvl,
+	snprintf(head, sizeof head, "%s; arrows: how much more (or less) 1RM gain B predicts than "
+		 "A, %d%% CI; dotted: within the SWC; decision: the %.0f%% interval against +/- the "
+		 "SWC %.1f%%", ctx, lvl,
 		 100 * cmp_decision_level(a->ctx->opt.level), curve_pct(p->swc));
 	for (int m = 0; m < SD_NMUSCLES; m++) {
 		pair_of(a, m, &pr[m]);
-		if (fabs(pr[m].xb - pr[m].xa) > span)
-			span = fabs(pr[m].xb - pr[m].xa);
+		if (fabs(curve_pct(pr[m].d)) > span)
+			span = fabs(curve_pct(pr[m].d));
 	}
 	/* The lines above and under the table are broken between words; the table gets the rows
 	 * left and scrolls. */
 	selected_text(a, pr, lvl, l1, sizeof l1, l2, sizeof l2);
-	cl = tui_put_wrapped(3, 1, COLS - 2, 2, 2, TR_DIM, head);
+	cl = tui_put_wrapped(3, 1, COLS - 2, 3, 2, TR_DIM, head);
 	b1 = tui_wrapped_lines(COLS - 2, 2, l1);
 	b2 = tui_wrapped_lines(COLS - 2, 2, l2);
 	b1 = b1 > 2 ? 2 : b1;
@@ -111,7 +119,16 @@ static void draw(struct tui_app *a)
 	tui_put(top - 1, 1, 12, TR_HEAD, "muscle");
 	tui_put(top - 1, 14, 5, TR_HEAD, "    A");
 	tui_put(top - 1, 20, 5, TR_HEAD, "    B");
-	tui_putf(top - 1, gx, gw, TR_HEAD, "%*s", gw / 2 + 3, "B - A");
+	{
+		/* The arrows' heading in words, split at the centre line. */
+		int half = gw / 2;
+		/* Narrow gauges (80 columns) keep the short words rather than cut ones. */
+		const char *l = half >= 13 ? "less with B" : "less", *r = half >= 13 ? "more with B" :
+			"more";
+		tui_putf(top - 1, gx + half - (int)strlen(l) - 1 > gx ? gx + half - (int)strlen(l) - 1 : gx,
+			 half, TR_HEAD, "%s", l);
+		tui_put(top - 1, gx + half + 2, gw - half - 2, TR_HEAD, r);
+	}
 	tui_put(top - 1, gx + gw + 1, 6, TR_HEAD, " diff%");
 	tui_putf(top - 1, gx + gw + 8, 15, TR_HEAD, "    %d%% CI", lvl);
 	tui_put(top - 1, gx + gw + 24, 12, TR_HEAD, "decision");
@@ -125,7 +142,7 @@ static void draw(struct tui_app *a)
 		tui_put(y, 1, 12, role, muscle_name(m));
 		tui_putf(y, 14, 5, role, "%5.1f", q->xa);
 		tui_putf(y, 20, 5, role, "%5.1f", q->xb);
-		diff_gauge(a, y, gx, gw, q->xb - q->xa, span);
+		diff_gauge(a, y, gx, gw, curve_pct(q->d), span, swc);
 		tui_putf(y, gx + gw + 1, 6, role, "%+6.1f", curve_pct(q->d));
 		tui_putf(y, gx + gw + 8, 15, role, "%6.1f to %-6.1f", curve_pct(q->lo), curve_pct(q->hi));
 		tui_put(y, gx + gw + 24, 12, sel ? role : q->decision == CMP_CLEAR_GAIN ? TR_OK :

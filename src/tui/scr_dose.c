@@ -1,5 +1,6 @@
-/* The dose view: per muscle the weekly fractional sets as a gauge on a scale marking the
- * practical plateau and the end of the evidence, the predicted gain with its bands (the average
+/* The dose view: per muscle its weekly fractional sets placed on the curve of diminishing
+ * returns (a strip of cells as tall as the curve, climbed up to the dose, on a scale marking the
+ * practical plateau and the end of the evidence), the predicted gain with its bands (the average
  * curve; one athlete when the window is wide; all three in the detail line), what one more
  * weekly set buys, the zone, the audit's warnings and the profile's provenance line. All from
  * audit_run. */
@@ -35,7 +36,7 @@ static void init(struct tui_app *a)
 }
 
 static void draw_row(struct tui_app *a, const struct sd_audit *au, int m, int y, int sel,
-		     int gx, int gw, double smax, int wide)
+		     int gx, int gw, double smax, int wide, const unsigned char *lev)
 {
 	const struct sd_audit_row *r = &au->row[m];
 	const struct sd_profile *p = &a->ctx->profile;
@@ -48,7 +49,7 @@ static void draw_row(struct tui_app *a, const struct sd_audit *au, int m, int y,
 	tui_put(y, 1, 12, role, muscle_name(m));
 	tui_putf(y, 13, 5, r->dose.fractional > 0 ? role : (sel ? TR_SEL : TR_DIM), "%5.1f",
 		 r->dose.fractional);
-	tui_gauge(a, y, gx, gw, smax, r->dose.fractional, au->plateau, p->dose_max, zr);
+	tui_dose_strip(a, y, gx, gw, lev, smax, r->dose.fractional, au->plateau, p->dose_max, zr);
 	tui_putf(y, x, 6, role, "%+6.1f", curve_pct(r->pt.y));
 	tui_putf(y, x + 7, 13, role, "%5.1f to %-5.1f", curve_pct(r->pt.ci_lo), curve_pct(r->pt.ci_hi));
 	x += 21;
@@ -170,13 +171,30 @@ static void draw(struct tui_app *a)
 		tui_put(top - 1, x, 6, TR_HEAD, "+1 set");
 		tui_put(top - 1, x + 7, 10, TR_HEAD, "zone");
 	}
+	/* The curve's shape over the scale, once: each cell as tall as the mean gain there,
+	 * from no sets (lowest) to the scale's end (highest). */
+	unsigned char lev[512];
+	{
+		struct sd_covars cov = tui_covars(a);
+		struct sd_point p0, p1, pt;
+		int n = gw < (int)sizeof lev ? gw : (int)sizeof lev;
+		curve_eval(p, &cov, 0, au->level, &p0);
+		curve_eval(p, &cov, smax, au->level, &p1);
+		for (int i = 0; i < n; i++) {
+			curve_eval(p, &cov, smax * (i + 0.5) / gw, au->level, &pt);
+			double t = p1.y > p0.y ? (pt.y - p0.y) / (p1.y - p0.y) : 0;
+			lev[i] = (unsigned char)lround(fmin(fmax(t, 0), 1) * 7);
+		}
+		if (gw > n)
+			gw = n;
+	}
 	if (a->st.warn_pane) {
 		draw_warnings(a, au, top + 1, rows - 1);
 	} else {
 		tui_list_fit(&a->st.muscles, rows);
 		for (int r = 0; r < a->st.muscles.rows && a->st.muscles.top + r < SD_NMUSCLES; r++) {
 			int m = a->st.muscles.top + r;
-			draw_row(a, au, m, top + r, m == a->st.muscles.sel, gx, gw, smax, wide);
+			draw_row(a, au, m, top + r, m == a->st.muscles.sel, gx, gw, smax, wide, lev);
 		}
 		/* A tall window has room for the warnings under the muscles. */
 		if (au->nwarn && rows - SD_NMUSCLES >= 3)
@@ -230,6 +248,8 @@ static int key(struct tui_app *a, int ch)
 	case K_CURVE:
 		if (a->a.ready)
 			tui_open(a, TUI_CURVE);
+		else
+			tui_say(a, 1, "no curve to show: %s", a->a.err);
 		return 1;
 	case K_WARN:
 		tui_warn_pane_toggle(&a->st);

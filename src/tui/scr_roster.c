@@ -6,10 +6,10 @@
 #include "app.h"
 
 enum { K_UP = 1, K_DOWN, K_PGUP, K_PGDN, K_HOME, K_END, K_OPEN, K_NEW, K_EDIT, K_REMOVE,
-       K_SHELF, K_ERASE, K_CLEAR };
+       K_SHELF, K_ERASE, K_CLEAR, K_SEARCH };
 
 static const struct tui_bind keys[] = {
-	{ { 0 }, 0, "letters", "search: type any part of a name" },
+	{ { '/' }, K_SEARCH, "/", "search: then type any part of a name (Enter opens, Esc clears)" },
 	{ { KEY_BACKSPACE, 127, 8 }, K_ERASE, "Backspace", "take back a search letter" },
 	{ { 27 }, K_CLEAR, "Esc", "clear the search (with none, leave setdose)" },
 	{ { KEY_UP }, K_UP, "Up", "previous athlete" },
@@ -53,9 +53,9 @@ static void draw(struct tui_app *a)
 	if (wn > 40)
 		wn = 40;
 	tui_put(y + 1, 1, 8, TR_HEAD, "search");
-	tui_putf(y + 1, 9, COLS / 2, a->st.search.len ? TR_PLAIN : TR_DIM, "%s%s",
-		 a->st.search.len ? a->st.search.text : "type a name",
-		 a->st.search.len ? (a->unicode ? "\u258f" : "_") : "");
+	tui_putf(y + 1, 9, COLS / 2, a->st.search.len || a->st.search.active ? TR_PLAIN : TR_DIM,
+		 "%s%s", a->st.search.len || a->st.search.active ? a->st.search.text :
+		 "/ to search by name", a->st.search.active ? (a->unicode ? "\u258f" : "_") : "");
 	snprintf(buf, sizeof buf, "%d of %d athlete%s", a->nmatch, a->nathletes,
 		 a->nathletes == 1 ? "" : "s");
 	tui_put(y + 1, COLS - (int)strlen(buf) - 1, (int)strlen(buf), TR_DIM, buf);
@@ -79,10 +79,11 @@ static void draw(struct tui_app *a)
 	}
 	if (!a->nmatch)
 		tui_put(top, 3, COLS - 4, TR_DIM, a->nathletes ? "no athlete matches the search"
-							 : "no athletes yet: + adds one");
-	tui_putf(LINES - 2, 1, COLS - 2, TR_DIM, "Enter open %s + new %s = edit %s Delete remove %s "
-		 "Tab templates %s ? keys", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|",
-		 a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|");
+							 : "no athletes yet: + adds one; Tab, then + adds a template");
+	tui_putf(LINES - 2, 1, COLS - 2, TR_DIM, "/ search %s Enter open %s + new %s = edit %s Delete "
+		 "remove %s Tab templates %s q leave", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|",
+		 a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|",
+		 a->unicode ? "\u00b7" : "|");
 }
 
 static void open_selected(struct tui_app *a)
@@ -133,11 +134,42 @@ static void ask_remove(struct tui_app *a)
 	tui_confirm_open(&a->st, q, TUI_ASK_REMOVE_ATHLETE);
 }
 
+/* While the search is active, letters (q too) type into it; Enter, Esc and moving end it. */
+static int search_key(struct tui_app *a, int ch)
+{
+	if (ch >= 32 && ch < 127) {
+		if (tui_filter_add(&a->st.search, ch)) {
+			tui_filter_roster(a);
+			tui_list_select(&a->st.roster, 0);
+		} else
+			tui_say(a, 1, "the search takes at most %d characters", TUI_FILTER_MAX - 1);
+		return 1;
+	}
+	if (tui_action(keys, ch) == K_ERASE) {
+		if (tui_filter_back(&a->st.search))
+			tui_filter_roster(a);
+		return 1;
+	}
+	tui_filter_stop(&a->st.search);
+	if (ch == 27) {      /* Esc ends the search and clears it; it never leaves from here */
+		tui_filter_clear(&a->st.search);
+		tui_filter_roster(a);
+		return 1;
+	}
+	return 0;
+}
+
 static int key(struct tui_app *a, int ch)
 {
-	int act = tui_action(keys, ch);
+	int act;
 
+	if (a->st.search.active && search_key(a, ch))
+		return 1;
+	act = tui_action(keys, ch);
 	switch (act) {
+	case K_SEARCH:
+		tui_filter_start(&a->st.search);
+		return 1;
 	case K_UP:
 		tui_list_move(&a->st.roster, -1);
 		return 1;
@@ -157,22 +189,31 @@ static int key(struct tui_app *a, int ch)
 		tui_list_select(&a->st.roster, a->nmatch - 1);
 		return 1;
 	case K_OPEN:
+		if (!selected(a)) {
+			tui_say(a, 1, a->nathletes ? "no athlete matches the search: Esc clears it"
+				: "no athletes yet: + adds one");
+			return 1;
+		}
 		open_selected(a);
 		return 1;
 	case K_NEW:
 		tui_form_open_athlete(a, NULL);
 		return 1;
 	case K_EDIT:
-		if (selected(a))
-			edit_selected(a);
-		return 1;
 	case K_REMOVE:
-		ask_remove(a);
+		if (!selected(a))
+			tui_say(a, 1, "no athlete selected to %s", act == K_EDIT ? "edit" : "remove");
+		else if (act == K_EDIT)
+			edit_selected(a);
+		else
+			ask_remove(a);
 		return 1;
 	case K_SHELF:
 		tui_open(a, TUI_SHELF);
 		return 1;
 	case K_ERASE:
+		if (!a->st.search.len)
+			return 0;   /* Backspace with no search: the global key goes back */
 		if (tui_filter_back(&a->st.search))
 			tui_filter_roster(a);
 		return 1;
@@ -183,16 +224,8 @@ static int key(struct tui_app *a, int ch)
 		tui_filter_roster(a);
 		return 1;
 	default:
-		break;
+		return 0;
 	}
-	if (ch != '?' && ch >= 32 && ch < 127) {
-		if (tui_filter_add(&a->st.search, ch)) {
-			tui_filter_roster(a);
-			tui_list_select(&a->st.roster, 0);
-		}
-		return 1;
-	}
-	return 0;
 }
 
 const struct tui_screen tui_roster_screen = { "roster", init, draw, key, keys };

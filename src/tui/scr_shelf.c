@@ -7,7 +7,7 @@
 #include "app.h"
 
 enum { K_UP = 1, K_DOWN, K_PGUP, K_PGDN, K_HOME, K_END, K_OPEN, K_CURVE, K_MARK, K_COMPARE,
-       K_EDIT, K_ROSTER };
+       K_EDIT, K_ROSTER, K_ADD };
 
 static const struct tui_bind keys[] = {
 	{ { KEY_UP }, K_UP, "Up", "previous template" },
@@ -22,6 +22,7 @@ static const struct tui_bind keys[] = {
 	{ { ' ' }, K_MARK, "Space", "mark as A, the first of a comparison (again: unmark)" },
 	{ { 'c' }, K_COMPARE, "c", "compare the marked template A with this one, B" },
 	{ { 'e' }, K_EDIT, "e", "edit the text in $VISUAL or $EDITOR; stored only once valid" },
+	{ { '+' }, K_ADD, "+", "add a template from a program file (its path)" },
 	{ { '\t' }, K_ROSTER, "Tab", "back to the roster" },
 	{ { 0 }, 0, NULL, NULL },
 };
@@ -64,11 +65,12 @@ static void draw(struct tui_app *a)
 		tui_put(y, 13 + wn, 20, sel ? TR_SEL : TR_DIM, p->created);
 	}
 	if (!a->nprogs)
-		tui_put(top, 3, COLS - 4, TR_DIM, "no templates stored yet: 'setdose program add FILE' "
-			"stores one");
+		tui_put(top, 3, COLS - 4, TR_DIM, "no templates stored yet: + adds one from a program "
+			"file");
 	tui_putf(LINES - 2, 1, COLS - 2, TR_DIM, "Enter dose %s k curve %s Space mark A %s c compare "
-		 "%s e edit %s Esc back", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|",
-		 a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|");
+		 "%s e edit %s + add %s Esc back", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|",
+		 a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|", a->unicode ? "\u00b7" : "|",
+		 a->unicode ? "\u00b7" : "|");
 }
 
 static const struct db_program *selected(const struct tui_app *a)
@@ -81,8 +83,10 @@ static void open_view(struct tui_app *a, enum tui_view v)
 	const struct db_program *p = selected(a);
 	struct sd_err e;
 
-	if (!p)
+	if (!p) {
+		tui_say(a, 1, "no template to show: + adds one from a program file");
 		return;
+	}
 	sd_err_clear(&e);
 	if (tui_subject_template(a, &a->a, p->id, 1, &e)) {
 		tui_say(a, 1, "%s", e.msg);
@@ -146,6 +150,11 @@ static int key(struct tui_app *a, int ch)
 		if (selected(a))
 			tui_say(a, 0, tui_mark_toggle(&a->st, selected(a)->id) ?
 				"marked as A: select another template and press c" : "mark cleared");
+		else
+			tui_say(a, 1, "no template to mark: + adds one from a program file");
+		return 1;
+	case K_ADD:
+		tui_form_open_add_template(a);
 		return 1;
 	case K_COMPARE:
 		compare(a);
@@ -153,6 +162,8 @@ static int key(struct tui_app *a, int ch)
 	case K_EDIT:
 		if (selected(a))
 			tui_edit_template(a, selected(a)->id);
+		else
+			tui_say(a, 1, "no template to edit: + adds one from a program file");
 		return 1;
 	case K_ROSTER:
 		tui_nav_reset(&a->st.nav, TUI_ROSTER);

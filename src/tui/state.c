@@ -120,6 +120,16 @@ void tui_filter_clear(struct tui_filter *f)
 	f->text[0] = '\0';
 }
 
+void tui_filter_start(struct tui_filter *f)
+{
+	f->active = 1;
+}
+
+void tui_filter_stop(struct tui_filter *f)
+{
+	f->active = 0;
+}
+
 int tui_filter_match(const struct tui_filter *f, const char *name)
 {
 	size_t n = strlen(name);

@@ -35,12 +35,18 @@ void tui_list_move_skip(struct tui_list *l, int delta, const unsigned char *ok);
 /* 1 when row i is on screen. */
 int tui_list_visible(const struct tui_list *l, int i);
 
-/* The roster's search text, typed directly on the list. */
+/* The roster's search text. Typing goes into it only while it is active ('/' starts it), so
+ * letters such as q keep their meaning on the list. */
 #define TUI_FILTER_MAX 48
 struct tui_filter {
 	char text[TUI_FILTER_MAX];
 	int len;
+	int active;
 };
+
+/* Starts typing into the search, or stops (the text stays and keeps filtering). */
+void tui_filter_start(struct tui_filter *f);
+void tui_filter_stop(struct tui_filter *f);
 
 /* Adds a printable ASCII character; returns 1 when the text changed. */
 int tui_filter_add(struct tui_filter *f, int ch);
@@ -103,7 +109,7 @@ int tui_context_changed(const struct tui_context *c);
 
 /* An entry form: labelled fields, text or a choice among options. */
 #define TUI_FORM_FIELDS 8
-#define TUI_FIELD_MAX 96
+#define TUI_FIELD_MAX 256   /* a file path fits */
 #define TUI_CHOICES_MAX 256
 enum tui_field_kind { TUI_TEXT, TUI_CHOICE };
 struct tui_field {

@@ -29,10 +29,10 @@ start 80 24 -- --db "$DB"
 wait_for "roster" "opens on the roster" || { finish; return 0; }
 wait_for "8 of 8 athletes" "lists the demo database's 8 athletes"
 on_screen "Maren Oakhollow +trained +kg" "athlete rows show status and units"
-on_screen "\? keys +F10 leave" "status line shows the help key"
+on_screen "\? keys +q leave" "status line shows the help key and q"
 
-# Typing searches; Enter opens the athlete's page.
-text "oakh"
+# / starts the search; Enter opens the athlete's page.
+text "/oakh"
 wait_for "search +oakh" "the search text is shown as it is typed"
 on_screen "1 of 8 athletes" "typing 'oakh' narrows the roster to one athlete"
 not_on_screen "Tobin Reedmere" "other athletes are hidden"
@@ -52,7 +52,7 @@ on_screen "$CHEST" "chest row equals 'setdose block show' (sets, gain, CI, +1 se
 on_screen "calves +0\.0 .* none" "a muscle without sets is shown as such"
 on_screen "profile 'strength-default' \(calibrated\): calibrated from memory" "the dose view shows the profile's provenance line"
 on_screen "$DETAIL" "the selected muscle's detail names the three levels, as 'setdose block show'"
-on_screen "███" "the gauges are drawn with block characters"
+on_screen "chest +5\.0 [▁▂▃▄▅▆▇█]+●[▁▂▃▄▅▆▇█┊┃]+" "the dose sits on a strip as tall as the curve, drawn with block characters"
 
 # The curve, its cursor starting at the selected muscle's dose (chest, 5.0 sets).
 keys k

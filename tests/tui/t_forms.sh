@@ -58,12 +58,29 @@ wait_for "added block [0-9]+: '$P' follows 'Tidewater minimal, two days'" "the f
 on_screen "2026-06-15 for 12 weeks" "a long message takes two lines; the block has the template's 12 weeks"
 wait_for "2026-06-15, open +12 wk Tidewater minimal.*current" "the page lists it as the current block"
 
-# Finish it today (2026-07-01 in the tests), after a question.
+# Finish it: the form asks the end date, today (2026-07-01 in the tests) unless changed, and
+# obeys the rule of 'block end': no date after today, none before the start.
 keys f
-wait_for "finish block [0-9]+ \('Tidewater minimal, two days'\) on 2026-07-01\?" "f asks before finishing the block"
-keys y
-wait_for "block [0-9]+ finished on 2026-07-01" "y finishes it"
-wait_for "2026-06-15 to 2026-07-01" "the page shows the end date"
+wait_for "finish block [0-9]+ \(from 2026-06-15\)" "f opens the finish form for the selected block"
+on_screen "end date +2026-07-01" "the end date starts as today"
+keys BSpace BSpace BSpace BSpace BSpace
+text "07-02"
+keys Enter
+wait_for "after today.*nothing stored" "an end date after today is refused, as 'block end' refuses it"
+keys BSpace BSpace BSpace BSpace BSpace
+text "06-10"
+keys Enter
+wait_for "before.*nothing stored" "an end date before the block's start is refused"
+check "nothing changed: the block is still open" sh -c "'$SD' --db '$DB' block list '$P' --format csv | grep -q ',open'"
+keys BSpace BSpace BSpace BSpace BSpace
+text "06-29"
+keys Enter
+wait_for "block [0-9]+ finished on 2026-06-29" "Enter finishes it on the date given"
+wait_for "2026-06-15 to 2026-06-29" "the page shows the end date"
+check "'setdose block list' shows the end date given in the form" sh -c \
+	"'$SD' --db '$DB' block list '$P' --format csv | grep -q '2026-06-29'"
+keys f
+wait_for "already finished on 2026-06-29" "f on a finished block says why it cannot act"
 
 # Remove the athlete: no, then yes.
 keys Escape

@@ -37,13 +37,13 @@ TUI_LANG=C
 start 80 24 -- --db "$DB" browse
 wait_for "8 of 8 athletes" "opens in the C locale"
 on_screen "setdose \| roster" "the title uses an ASCII separator"
-text "oakh"
+text "/oakh"
 keys Enter
 wait_for "blocks \(current first\)" "the athlete's page in ASCII"
 on_screen "^-- personal response -+$" "the rule is drawn with '-'"
 keys Enter
-wait_for "chest +5\.0 =+\.+\|" "the dose gauge is drawn with '=' and '.' and the end of the evidence '|'"
-on_screen "side-delts +1\.0 [-=]*\.*:\.+\|" "the plateau past a muscle's dose is marked ':'"
+wait_for "chest +5\.0 [-_.~=+*#]+@[-_.~=+*#:]+\|" "the dose strip in ASCII: the curve's rise in '_' to '#', the dose '@', the end of the evidence '|'"
+on_screen "side-delts +1\.0 [-_.~=+*#]*@[-_.~=+*#]*:[-_.~=+*#]+\|" "the plateau past a muscle's dose is marked ':'"
 keys k
 wait_for "# mean += 95% curve +: group +\. athlete" "the curve's legend uses ASCII glyphs"
 on_screen "#" "the curve's mean is drawn with '#'"

@@ -24,7 +24,7 @@ on_screen "Quill Ashdown" "the new athlete is listed"
 # At 80 columns, on a long-named athlete's page, the way here is cut and ends two columns
 # before the profile label.
 resize 80 24
-text "bravo"
+text "/bravo"
 keys Enter
 wait_for "blocks \(current first\)" "the athlete page opens"
 grab

@@ -50,6 +50,7 @@ keys Escape
 wait_gone "roster \(this view\)" "Esc closes the key card"
 
 # The athlete's page: heading and personal response.
+keys /
 text "oakh"
 keys Enter
 wait_for "blocks \(current first\)" "the athlete's page"
@@ -83,7 +84,7 @@ settle
 check "the dose view has no cut line" sh -c "! grep -q '$ELL' '$TMP/screen'"
 on_screen "^ +strength-volume literature, not fitted to study data" "the provenance goes on under itself"
 on_screen "^ calves " "every muscle still on screen at 80x24"
-on_screen "no warnings +┊ plateau [0-9.]+ +┃ end of evidence 30 +\? keys +F10 leave" "warnings and the scale's marks share the status line"
+on_screen "no warnings +┊ plateau [0-9.]+ +┃ end of evidence 30 +\? keys +q leave" "warnings and the scale's marks share the status line"
 keys k
 wait_for "at 5\.0 sets: gain" "the curve"
 settle
