@@ -21,6 +21,7 @@ rm -f big.db
 "$SD" --db big.db athlete add "Bench Lifter" >/dev/null || exit 1
 "$SD" --db big.db program add "$ROOT/profiles/demo-fullbody3.ini" >/dev/null || exit 1
 "$SD" --db big.db block add "Bench Lifter" "Tidewater full body, three days" --start 2024-01-08 >/dev/null
+"$SD" --db big.db block end 1 --date 2024-03-17 >/dev/null
 "$SD" --db big.db block add "Bench Lifter" "Tidewater full body, three days" --start 2024-03-18 >/dev/null
 "$BENCHBIN/bench_run" 1 "log import, 1,000,000 rows (setup, one run)" \
 	"$SD" --db big.db log import log1m.csv --athlete "Bench Lifter"
