@@ -7,6 +7,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "core/bounds.h"
 #include "core/date.h"
 #include "core/e1rm.h"
 #include "core/program.h"
@@ -350,6 +351,22 @@ static void ordinals(void **state)
 	assert_int_equal(tlog_ordinals(v, 0, &e), 0);
 }
 
+/* The log's ranges (core/bounds.h, man setdose LIMITS). */
+static void log_bounds(void **state)
+{
+	struct sd_err e;
+	(void)state;
+	assert_int_equal(bound_check(&bound_log_sets, "sets", 1, &e), 0);
+	assert_int_equal(bound_check(&bound_log_sets, "sets", 100, &e), 0);
+	assert_int_equal(bound_check(&bound_log_sets, "sets", 0, &e), -1);
+	assert_string_equal(e.msg, "sets = 0 is outside 1 to 100 (a set count)");
+	assert_int_equal(bound_check(&bound_log_sets, "sets", 2.5, &e), -1);
+	assert_string_equal(e.msg, "sets = 2.5 is not a whole number (a set count)");
+	assert_int_equal(bound_check(&bound_log_load, "load", 1000, &e), 0);
+	assert_int_equal(bound_check(&bound_log_load, "load", 1000.5, &e), -1);
+	assert_int_equal(bound_check(&bound_log_load, "load", 0.005, &e), -1);
+}
+
 static void effort_text(void **state)
 {
 	char buf[16];
@@ -375,6 +392,7 @@ int main(void)
 		cmocka_unit_test(weekly_best),
 		cmocka_unit_test(ordinals),
 		cmocka_unit_test(effort_text),
+		cmocka_unit_test(log_bounds),
 	};
 	return cmocka_run_group_tests(tests, setup, teardown);
 }

@@ -82,7 +82,7 @@ static int next_row(void *arg, struct db_log *out, struct sd_err *e)
 	r->timed = en->timed;
 	r->rir = en->rir;
 	r->load = en->load;
-	memcpy(r->unit, en->unit == TLOG_UNIT_LB ? "lb" : en->unit == TLOG_UNIT_KG ? "kg" : "", 3);
+	strcpy(r->unit, en->unit == TLOG_UNIT_LB ? "lb" : en->unit == TLOG_UNIT_KG ? "kg" : "");
 	r->ordinal = en->ordinal;
 	snprintf(r->source, sizeof r->source, "%.80s line %d", f->path, en->line);
 	*out = *r;

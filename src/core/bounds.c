@@ -10,6 +10,10 @@ const struct sd_bound bound_mean = { "a group mean", 1e-9, 1e12, 0 };
 const struct sd_bound bound_sd = { "a standard deviation", 0, 1e12, 0 };
 const struct sd_bound bound_n = { "a sample size", 2, 1e7, 0 };
 const struct sd_bound bound_r = { "a correlation", -1, 1, 0 };
+/* The program notation's set limit (core/program.h), and the heaviest load `test add` takes
+ * (core/units.h); the smallest is a 10 g plate's worth, above a load of 0 (none). */
+const struct sd_bound bound_log_sets = { "a set count", 1, 100, 1 };
+const struct sd_bound bound_log_load = { "a load in kg", 0.01, 1000, 0 };
 
 int bound_check(const struct sd_bound *b, const char *name, double x, struct sd_err *e)
 {

@@ -7,7 +7,8 @@
  * beyond e^5 = 148-fold, a sampling variance below 1e-8 that would dominate every weight) and
  * values that break the arithmetic. Common practice, no source.
  *
- * The training log, when it exists, adds the ranges of its fields here. */
+ * The training log's numeric fields (io/log_io.c) are here too; its reps and efforts follow the
+ * program notation's own limits (core/program.h). */
 #ifndef SD_BOUNDS_H
 #define SD_BOUNDS_H
 
@@ -29,6 +30,9 @@ extern const struct sd_bound bound_mean;      /* a group mean (any unit; positiv
 extern const struct sd_bound bound_sd;        /* a standard deviation */
 extern const struct sd_bound bound_n;         /* a group's sample size */
 extern const struct sd_bound bound_r;         /* the pre-post correlation */
+/* Training logs read by log import. */
+extern const struct sd_bound bound_log_sets;  /* identical sets one row stands for */
+extern const struct sd_bound bound_log_load;  /* a load, in kg once its unit is known */
 
 /* 0 when x is finite, inside b's range and whole where it must be; else -1 with e reading
  * "NAME = X is outside LO to HI (WHAT)" or "... is not a whole number". */

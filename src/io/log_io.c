@@ -6,6 +6,7 @@
 #include <string.h>
 #include <strings.h>
 
+#include "../core/bounds.h"
 #include "../core/date.h"
 #include "../core/program.h"
 #include "../core/units.h"
@@ -208,16 +209,16 @@ static int parse_load(char *s, struct tlog_entry *en, char *why, size_t n)
 	return 0;
 }
 
-/* The load in kilograms once the unit is known; refuses what no lifter moves. */
-static int check_load(const struct tlog_entry *en, const char *text, char *why, size_t n)
+/* The load in kilograms once the unit is known, inside its documented range. */
+static int check_load(const struct tlog_entry *en, char *why, size_t n)
 {
 	double kg = en->unit == TLOG_UNIT_LB ? units_lb_to_kg(en->load) : en->load;
+	struct sd_err be;
 
-	if (kg > UNITS_MAX_KG) {
-		snprintf(why, n, "bad load '%s': more than %.0f kg", text, UNITS_MAX_KG);
-		return -1;
-	}
-	return 0;
+	if (en->unit == TLOG_UNIT_NONE || !bound_check(&bound_log_load, "load", kg, &be))
+		return 0;
+	snprintf(why, n, "%s", be.msg);
+	return -1;
 }
 
 static int parse_reps(const char *s, struct tlog_entry *en, char *why, size_t n)
@@ -302,6 +303,8 @@ static void row(struct reader *r, char **f, int n, int line)
 	struct tlog_entry en;
 	char why[400], *s, *load;
 	const struct known *k;
+	struct sd_err be;
+	double x;
 	int bad = 0, lb;
 	long long id;
 	long today = r->src->today;
@@ -330,9 +333,14 @@ static void row(struct reader *r, char **f, int n, int line)
 	}
 	s = field(f, n, r->col[C_SETS]);
 	en.sets = 1;
-	if (*s && (csv_int(s, &en.sets) || en.sets < 1 || en.sets > SD_MAX_SETS)) {
+	if (*s && csv_double(s, &x)) {
 		problem(r, line, "bad set count '%s' (a whole number from 1 to %d)", s, SD_MAX_SETS);
 		bad = 1;
+	} else if (*s && bound_check(&bound_log_sets, "sets", x, &be)) {
+		problem(r, line, "%s", be.msg);
+		bad = 1;
+	} else if (*s) {
+		en.sets = (int)x;
 	}
 	if (parse_reps(field(f, n, r->col[C_REPS]), &en, why, sizeof why)) {
 		problem(r, line, "%s", why);
@@ -359,15 +367,13 @@ static void row(struct reader *r, char **f, int n, int line)
 	}
 	en.athlete_id = id;
 	load = field(f, n, r->col[C_LOAD]);
-	char text[64];
-	snprintf(text, sizeof text, "%s", load);
 	if (parse_load(load, &en, why, sizeof why)) {
 		problem(r, line, "%s", why);
 		return;
 	}
 	if (en.unit == TLOG_UNIT_DEFAULT)
 		en.unit = lb ? TLOG_UNIT_LB : TLOG_UNIT_KG;
-	if (check_load(&en, text, why, sizeof why)) {
+	if (check_load(&en, why, sizeof why)) {
 		problem(r, line, "%s", why);
 		return;
 	}
