@@ -20,7 +20,7 @@
 static double num(const struct ef_table *t, int row, const char *col)
 {
 	struct sd_err e = { 0 };
-	double x;
+	double x = 0;   /* fail_msg does not return; clang cannot tell */
 	int c = eft_col(t, col);
 	if (c < 0 || eft_number(t, row, c, &x, &e))
 		fail_msg("column %s row %d: %s", col, row, e.msg);
