@@ -86,7 +86,11 @@ $(B)/setdose: $(B)/obj/main.o $(OBJ)
 # the module's own functions to themselves, never to a same-named one loaded before (ncurses).
 $(MOD): $(MODOBJ) $(B)/obj/plot/chart_fmt.o $(B)/libcore.a
 	@mkdir -p $(dir $@)
-	$(CC) $(OPT) $(SAN) -shared -Wl,--as-needed -Wl,-Bsymbolic $(HARD_LDFLAGS) $(LDFLAGS) -Wl,--no-undefined -o $@ $^ $(MOD_LIBS) $(PKG_LIBS) -lm
+	$(CC) $(OPT) $(SAN) -shared -Wl,--as-needed -Wl,-Bsymbolic $(HARD_LDFLAGS) $(LDFLAGS) \
+	    $(MOD_NOUNDEF) -o $@ $^ $(MOD_LIBS) $(PKG_LIBS) -lm
+# Every symbol of the module resolved at link time, except in sanitizer builds: clang leaves the
+# sanitizer runtime to the executable, which provides it when the module is loaded.
+MOD_NOUNDEF = $(if $(SAN),,-Wl,--no-undefined)
 $(B)/libcore.a: $(COREOBJ)
 	rm -f $@ && ar rcs $@ $^
 

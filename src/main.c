@@ -132,7 +132,7 @@ static void find_datadir(char *buf, size_t n)
 	len = readlink("/proc/self/exe", exe, sizeof exe - 1);
 	if (len > 0) {
 		exe[len] = '\0';
-		for (int up = 0; up < 3; up++) {
+		for (int up = 0; up < 4; up++) {
 			char *slash = strrchr(exe, '/');
 			if (!slash)
 				break;
